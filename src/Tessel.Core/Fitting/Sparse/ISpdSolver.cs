@@ -1,0 +1,11 @@
+namespace Tessel.Core.Fitting.Sparse;
+
+/// <summary>Solves A x = b for a symmetric positive definite sparse A (both triangles stored).</summary>
+public interface ISpdSolver
+{
+    /// <summary>Solves into <paramref name="x"/>; its incoming contents are a warm start where the method uses one.</summary>
+    SolveStats Solve(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x);
+}
+
+/// <summary>What one solve cost and how well it ended.</summary>
+public readonly record struct SolveStats(string Method, int Iterations, double RelativeResidual, bool Converged);
