@@ -1,0 +1,60 @@
+namespace Tessel.Core.Jobs;
+
+/// <summary>A named choice a job can make, with one line saying what it is and what it suits.</summary>
+public sealed record CatalogEntry(string Name, string Summary);
+
+/// <summary>The names a job file accepts for target kinds, families, materials and fold methods.</summary>
+public static class Catalog
+{
+    /// <summary>Target kinds (target.kind).</summary>
+    public static readonly IReadOnlyList<CatalogEntry> TargetKinds =
+    [
+        new("plane", "flat horizontal plane at height rise; a test bed and for flat folded screens"),
+        new("cylinder", "barrel vault of radius R, axis along x, crown at rise; single curvature (K = 0)"),
+        new("spherical-cap", "dome: part of a sphere of radius R, apex at rise; synclastic (K > 0)"),
+        new("hyperbolic-paraboloid", "saddle canopy z = rise + x*y/c; anticlastic (K < 0)"),
+        new("elliptic-paraboloid", "dome with different apex radii radiusX and radiusY"),
+        new("sinusoidal-wave", "corrugated roof: amplitude, wavelength and phase along x"),
+        new("formula", "any z = f(x, y) you type, with exact derivatives; e.g. 0.1*(x^2 - y^2)"),
+        new("height-map", "grayscale PNG over width x depth, black = minHeight, white = maxHeight"),
+        new("mesh", "OBJ or STL surface, seen from above; curvature is an estimate"),
+    ];
+
+    /// <summary>Tessellation families (tessellation.family). The egg-box is never offered: it cannot
+    /// be folded from a flat sheet.</summary>
+    public static readonly IReadOnlyList<CatalogEntry> Families =
+    [
+        new("miura", "degree-4 quads, rigid-foldable; bends naturally into saddles (K < 0)"),
+        new("reverse-curvature", "graded degree-4 quads whose envelope is dome-like (K > 0)"),
+        new("yoshimura", "diamond triangles; folds into barrel vaults and cylinders (K = 0)"),
+        new("waterbomb", "triangles around degree-6 vertices; tubes and, graded, domes"),
+        new("free-triangulated", "triangulated quads with free diagonals; follows any shape, not flat-foldable"),
+    ];
+
+    /// <summary>Material names the sheet stage knows (fabrication.material); a minimal list for now.</summary>
+    public static readonly IReadOnlyList<CatalogEntry> Materials =
+    [
+        new("card-300", "300 gsm card, about 0.4 mm: study models up to A2, scored folds"),
+        new("card-350", "350 gsm card, about 0.45 mm: stiffer panels, perforated folds"),
+        new("polypropylene-0.5", "0.5 mm polypropylene: repeated folding, perforated or scored"),
+        new("paper-120", "120 gsm paper: quick fold tests on a desktop printer"),
+    ];
+
+    /// <summary>Ways to make a fold line (fabrication.foldMethod.mountain / .valley).</summary>
+    public static readonly IReadOnlyList<CatalogEntry> FoldMethods =
+    [
+        new("score", "half-depth score on the outside of the fold"),
+        new("perforate", "through-cut dashes with uncut bridges; folds either way"),
+        new("two-sided", "scored from the side that ends up outside; the back job is mirrored"),
+    ];
+
+    /// <summary>Which vertices fitting pins to the target (fitting.anchors).</summary>
+    public static readonly IReadOnlyList<string> Anchors = ["none", "corners", "edge"];
+
+    /// <summary>Sheet orientations (fabrication.orientation).</summary>
+    public static readonly IReadOnlyList<string> Orientations = ["auto", "portrait", "landscape"];
+
+    /// <summary>Line classes of the layer table, camelCase names of <see cref="Sheets.LineClass"/>.</summary>
+    public static IReadOnlyList<string> LineClasses { get; } =
+        Enum.GetNames<Sheets.LineClass>().Select(n => char.ToLowerInvariant(n[0]) + n[1..]).ToArray();
+}

@@ -1,0 +1,39 @@
+namespace Tessel.Core.Jobs;
+
+/// <summary>The job's <c>fabrication</c> section: scale, material, sheets and line styles.</summary>
+/// <param name="Scale">n of the model scale 1:n.</param>
+/// <param name="Material">Material preset name (resolved by the sheet stage).</param>
+/// <param name="FoldMethod">How mountain and valley folds are made.</param>
+/// <param name="Sheet">Sheet size.</param>
+/// <param name="Orientation">portrait, landscape or auto.</param>
+/// <param name="MarginMm">Empty border kept on every sheet.</param>
+/// <param name="SpacingMm">Gap between parts.</param>
+/// <param name="KerfMm">Width of material the cutter removes.</param>
+/// <param name="Tab">Glue tab shape.</param>
+/// <param name="HairlineMm">Stroke width of cut and fold lines.</param>
+/// <param name="Layers">Line class (camelCase name of a <see cref="Sheets.LineClass"/>) to style; always holds every class.</param>
+public sealed record FabricationSpec(
+    double Scale,
+    string Material,
+    FoldMethodSpec FoldMethod,
+    SheetSpec Sheet,
+    string Orientation,
+    double MarginMm,
+    double SpacingMm,
+    double KerfMm,
+    TabSpec Tab,
+    double HairlineMm,
+    IReadOnlyDictionary<string, LayerStyle> Layers);
+
+/// <summary>score, perforate or two-sided, for each fold direction.</summary>
+public sealed record FoldMethodSpec(string Mountain, string Valley);
+
+/// <summary>A named sheet size (ISO 216 or US) or an explicit size; <see cref="WidthMm"/> and
+/// <see cref="HeightMm"/> are always filled (portrait, width &lt;= height for named sizes).</summary>
+public sealed record SheetSpec(string? Name, double WidthMm, double HeightMm);
+
+/// <summary>Glue tab width (a handling size, not scaled) and end taper.</summary>
+public sealed record TabSpec(double WidthMm, double TaperDeg);
+
+/// <summary>How one line class is drawn and cut: colour (#rrggbb), pen number and cutter passes.</summary>
+public sealed record LayerStyle(string Colour, int Pen, int Passes);

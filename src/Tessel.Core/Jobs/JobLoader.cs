@@ -1,0 +1,395 @@
+using System.Text;
+using System.Text.Json;
+using System.Text.RegularExpressions;
+using static Tessel.Core.Jobs.FieldReader;
+
+namespace Tessel.Core.Jobs;
+
+/// <summary>Reads and validates job files. JSON with comments and trailing commas; unknown fields,
+/// wrong types and out-of-range values are errors naming the field path and the fix.</summary>
+public static partial class JobLoader
+{
+    private static readonly JsonDocumentOptions Options = new()
+    {
+        CommentHandling = JsonCommentHandling.Skip,
+        AllowTrailingCommas = true,
+        MaxDepth = 32,
+    };
+
+    /// <summary>Loads a job file; relative input paths in it resolve against its folder.</summary>
+    /// <exception cref="JobError">The file is missing, unreadable, malformed or invalid.</exception>
+    public static Job Load(string path)
+    {
+        string text;
+        try { text = File.ReadAllText(path, Encoding.UTF8); }
+        catch (FileNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
+        catch (DirectoryNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        { throw new JobError(path, $"cannot read the job file ({e.Message})"); }
+        string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? Directory.GetCurrentDirectory();
+        return Parse(text, Path.GetFileName(path), dir);
+    }
+
+    /// <summary>Parses job text. <paramref name="sourceName"/> prefixes syntax errors
+    /// ("job.json:3:14: ..."); <paramref name="baseDirectory"/> resolves relative input paths.</summary>
+    public static Job Parse(string json, string sourceName, string baseDirectory) =>
+        Parse(json, sourceName, baseDirectory, null);
+
+    /// <summary>Every field path the loader reads ("target.radius", "fabrication.layers.valley.colour"),
+    /// sorted. The JSON Schema must list exactly these.</summary>
+    public static IReadOnlyList<string> KnownFieldPaths()
+    {
+        var known = new SortedSet<string>(StringComparer.Ordinal);
+        // The smallest valid job: absent sections read as empty objects, so every field is visited.
+        Parse("""{ "target": { "kind": "plane", "footprint": { "width": 1, "depth": 1 } } }""",
+            "(minimal)", Directory.GetCurrentDirectory(), known);
+        return known.ToArray();
+    }
+
+    private static Job Parse(string json, string sourceName, string baseDirectory, ICollection<string>? known)
+    {
+        JsonDocument doc;
+        try { doc = JsonDocument.Parse(json, Options); }
+        catch (JsonException e)
+        {
+            long line = (e.LineNumber ?? 0) + 1, col = (e.BytePositionInLine ?? 0) + 1;
+            string why = e.Message;
+            int cut = why.IndexOf(" LineNumber:", StringComparison.Ordinal);
+            if (cut > 0) why = why[..cut].TrimEnd('.', ' ');
+            throw new JobError($"{sourceName}:{line}:{col}", $"malformed JSON: {why}");
+        }
+        using (doc)
+        {
+            var root = new FieldReader(doc.RootElement, "", known);
+            root.String("$schema");
+            var nameText = root.String("name");
+            var description = root.String("description");
+            int seed = root.Integer("seed") ?? 1;
+            var target = ReadTarget(root.Object("target"));
+            var tess = ReadTessellation(root.Object("tessellation"));
+            var fitting = ReadFitting(root.Object("fitting"));
+            var fab = ReadFabrication(root.Object("fabrication"));
+            var outputs = ReadOutputs(root.Object("outputs"));
+            root.RejectUnknown();
+            string name = nameText ?? "tessel-model";
+            if (!SafeName().IsMatch(name) || Reserved.Contains(name.Split('.')[0].ToUpperInvariant()))
+                throw new JobError("name", $"must be a safe file name: letters, digits, '-', '_' or '.', starting with a letter or digit, at most 64 characters (got \"{name}\")");
+            if (seed < 0) throw new JobError("seed", $"must be a whole number >= 0 (got {seed})");
+            return new Job(name, description, seed, target, tess, fitting, fab, outputs) { BaseDirectory = baseDirectory };
+        }
+    }
+
+    [GeneratedRegex("^[A-Za-z0-9][A-Za-z0-9._-]{0,63}$")]
+    private static partial Regex SafeName();
+
+    private static readonly HashSet<string> Reserved =
+        ["CON", "PRN", "AUX", "NUL", "COM1", "COM2", "COM3", "COM4", "LPT1", "LPT2", "LPT3"];
+
+    private static TargetSpec ReadTarget(FieldReader r)
+    {
+        string? kind = r.String("kind");
+        string units = r.String("units") ?? "m";
+        var radius = r.Number("radius");
+        var rise = r.Number("rise");
+        var c = r.Number("c");
+        var rx = r.Number("radiusX");
+        var ry = r.Number("radiusY");
+        var amplitude = r.Number("amplitude");
+        var wavelength = r.Number("wavelength");
+        double phase = r.Number("phaseDeg") ?? 0;
+        var formula = r.String("formula");
+        var image = r.String("image");
+        var imageWidth = r.Number("imageWidth");
+        var imageDepth = r.Number("imageDepth");
+        var minHeight = r.Number("minHeight");
+        var maxHeight = r.Number("maxHeight");
+        var mesh = r.String("mesh");
+        var fr = r.Object("footprint");
+        bool hasFootprint = r.Has("footprint");
+        var fw = fr.Number("width");
+        var fd = fr.Number("depth");
+        var corners = fr.NumberPairs("corners");
+        fr.RejectUnknown();
+        r.RejectUnknown();
+
+        if (kind is null) throw Missing(r, "kind", Names(Catalog.TargetKinds));
+        CheckChoice(r.PathOf("kind"), kind, Catalog.TargetKinds.Select(k => k.Name));
+        CheckChoice(r.PathOf("units"), units, Geometry.Units.Known);
+        string len = $"length in {units}";
+
+        FootprintSpec? footprint = null;
+        if (hasFootprint)
+        {
+            if (corners is not null)
+            {
+                if (fw is not null || fd is not null)
+                    throw new JobError(fr.PathOf("corners"), "give either width and depth or corners, not both");
+                if (corners.Length < 3) throw new JobError(fr.PathOf("corners"), $"a polygon needs at least 3 [x, y] corners (got {corners.Length})");
+                double area = 0;
+                for (int i = 0; i < corners.Length; i++)
+                {
+                    var a = corners[i]; var b = corners[(i + 1) % corners.Length];
+                    area += a[0] * b[1] - a[1] * b[0];
+                }
+                if (Math.Abs(area) <= 0) throw new JobError(fr.PathOf("corners"), "the polygon has zero area; list its corners in order");
+            }
+            else
+            {
+                Positive(fr.PathOf("width"), fw, len, required: true);
+                Positive(fr.PathOf("depth"), fd, len, required: true);
+            }
+            footprint = new FootprintSpec(fw, fd, corners);
+        }
+        else if (kind is not ("height-map" or "mesh"))
+        {
+            throw new JobError(r.PathOf("footprint"), "missing; add \"footprint\": { \"width\": ..., \"depth\": ... } or { \"corners\": [[x, y], ...] }");
+        }
+
+        switch (kind)
+        {
+            case "cylinder":
+            case "spherical-cap":
+                Positive(r.PathOf("radius"), radius, len, required: true);
+                NonNegative(r.PathOf("rise"), rise, len, required: true);
+                break;
+            case "hyperbolic-paraboloid":
+                if (c is null) throw new JobError(r.PathOf("c"), $"missing; z = rise + x*y/c needs c, a non-zero {len}");
+                if (c == 0) throw new JobError(r.PathOf("c"), $"must be a non-zero {len} (got 0)");
+                break;
+            case "elliptic-paraboloid":
+                NonZero(r.PathOf("radiusX"), rx, len);
+                NonZero(r.PathOf("radiusY"), ry, len);
+                break;
+            case "sinusoidal-wave":
+                Positive(r.PathOf("amplitude"), amplitude, len, required: true);
+                Positive(r.PathOf("wavelength"), wavelength, len, required: true);
+                break;
+            case "formula":
+                if (string.IsNullOrWhiteSpace(formula))
+                    throw new JobError(r.PathOf("formula"), "missing; write z as a function of x and y, e.g. \"0.1*(x^2 - y^2)\"");
+                break;
+            case "height-map":
+                if (string.IsNullOrWhiteSpace(image)) throw new JobError(r.PathOf("image"), "missing; give the path of a grayscale PNG");
+                Positive(r.PathOf("imageWidth"), imageWidth, len, required: true);
+                Positive(r.PathOf("imageDepth"), imageDepth, len, required: true);
+                if (maxHeight is null) throw new JobError(r.PathOf("maxHeight"), $"missing; the height of white pixels, a {len}");
+                if (!(maxHeight > (minHeight ?? 0)))
+                    throw new JobError(r.PathOf("maxHeight"), $"must be greater than minHeight ({Format(minHeight ?? 0)}) (got {Format(maxHeight.Value)})");
+                break;
+            case "mesh":
+                if (string.IsNullOrWhiteSpace(mesh)) throw new JobError(r.PathOf("mesh"), "missing; give the path of an .obj or .stl file");
+                string ext = Path.GetExtension(mesh).ToLowerInvariant();
+                if (ext is not (".obj" or ".stl")) throw new JobError(r.PathOf("mesh"), $"must be an .obj or .stl file (got \"{mesh}\")");
+                break;
+        }
+        return new TargetSpec(kind, units, radius, rise, c, rx, ry, amplitude, wavelength, phase, formula, image,
+            imageWidth, imageDepth, minHeight, maxHeight, mesh, footprint);
+    }
+
+    private static TessellationSpec ReadTessellation(FieldReader r)
+    {
+        string family = r.String("family") ?? "miura";
+        var cx = r.Integer("cellsX");
+        var cy = r.Integer("cellsY");
+        var size = r.Number("cellSize");
+        double sector = r.Number("sectorAngleDeg") ?? 60;
+        var depth = r.Number("foldDepth");
+        double orient = r.Number("orientationDeg") ?? 0;
+        double share = r.Number("flatDiagonalShare") ?? 0.5;
+        r.RejectUnknown();
+        CheckChoice(r.PathOf("family"), family, Catalog.Families.Select(f => f.Name), family.Contains("egg", StringComparison.OrdinalIgnoreCase)
+            ? "the egg-box pattern is not developable and cannot be folded from one sheet; " : "");
+        if (cx is not null && (cx < 1 || cx > 500)) throw new JobError(r.PathOf("cellsX"), $"must be a whole number from 1 to 500 (got {cx})");
+        if (cy is not null && (cy < 1 || cy > 500)) throw new JobError(r.PathOf("cellsY"), $"must be a whole number from 1 to 500 (got {cy})");
+        Positive(r.PathOf("cellSize"), size, "length in the target's units", required: false);
+        if (size is null && (cx is null || cy is null)) { cx ??= 8; cy ??= 8; }
+        if (!(sector > 0 && sector < 90)) throw new JobError(r.PathOf("sectorAngleDeg"), $"must be an angle between 0 and 90 degrees, exclusive (got {Format(sector)})");
+        Positive(r.PathOf("foldDepth"), depth, "length in the target's units", required: false);
+        if (!(share >= 0 && share <= 1)) throw new JobError(r.PathOf("flatDiagonalShare"), $"must be a share from 0 to 1 (got {Format(share)})");
+        return new TessellationSpec(family, cx, cy, size, sector, depth, orient, share);
+    }
+
+    private static FittingSpec ReadFitting(FieldReader r)
+    {
+        double eps = r.Number("epsilonDeg") ?? 0;
+        double[] sweep = r.Numbers("epsilonSweepDeg") ?? [];
+        var seed = r.Integer("seed");
+        int starts = r.Integer("starts") ?? 1;
+        int maxIt = r.Integer("maxIterations") ?? 200;
+        double tol = r.Number("tolerance") ?? 1e-9;
+        bool accept = r.Bool("acceptUnconverged") ?? false;
+        string anchors = r.String("anchors") ?? "none";
+        var b = r.Object("bounds");
+        double minSector = b.Number("minSectorAngleDeg") ?? 10;
+        double maxSector = b.Number("maxSectorAngleDeg") ?? 170;
+        double minFold = b.Number("minFoldAngleDeg") ?? 0;
+        double maxFold = b.Number("maxFoldAngleDeg") ?? 170;
+        double minEdge = b.Number("minEdgeLengthMm") ?? 3;
+        b.RejectUnknown();
+        r.RejectUnknown();
+        if (!(eps >= 0 && eps < 45)) throw new JobError(r.PathOf("epsilonDeg"), $"must be an angle from 0 to 45 degrees (got {Format(eps)})");
+        for (int i = 0; i < sweep.Length; i++)
+            if (!(sweep[i] >= 0 && sweep[i] < 45)) throw new JobError($"{r.PathOf("epsilonSweepDeg")}[{i}]", $"must be an angle from 0 to 45 degrees (got {Format(sweep[i])})");
+        if (seed < 0) throw new JobError(r.PathOf("seed"), $"must be a whole number >= 0 (got {seed})");
+        if (starts < 1 || starts > 1000) throw new JobError(r.PathOf("starts"), $"must be a whole number from 1 to 1000 (got {starts})");
+        if (maxIt < 1) throw new JobError(r.PathOf("maxIterations"), $"must be a whole number >= 1 (got {maxIt})");
+        if (!(tol > 0 && tol < 1)) throw new JobError(r.PathOf("tolerance"), $"must be a positive number below 1 (got {Format(tol)})");
+        CheckChoice(r.PathOf("anchors"), anchors, Catalog.Anchors);
+        Angle(b.PathOf("minSectorAngleDeg"), minSector);
+        Angle(b.PathOf("maxSectorAngleDeg"), maxSector);
+        Angle(b.PathOf("minFoldAngleDeg"), minFold);
+        Angle(b.PathOf("maxFoldAngleDeg"), maxFold);
+        if (!(minSector < maxSector)) throw new JobError(b.PathOf("maxSectorAngleDeg"), $"must be greater than minSectorAngleDeg ({Format(minSector)}) (got {Format(maxSector)})");
+        if (!(minFold < maxFold)) throw new JobError(b.PathOf("maxFoldAngleDeg"), $"must be greater than minFoldAngleDeg ({Format(minFold)}) (got {Format(maxFold)})");
+        NonNegative(b.PathOf("minEdgeLengthMm"), minEdge, "length in mm", required: true);
+        return new FittingSpec(eps, sweep, seed, starts, maxIt, tol, accept, anchors,
+            new FittingBounds(minSector, maxSector, minFold, maxFold, minEdge));
+    }
+
+    private static FabricationSpec ReadFabrication(FieldReader r)
+    {
+        double scale = r.Number("scale") ?? 100;
+        string material = r.String("material") ?? "card-300";
+        var fm = r.Object("foldMethod");
+        string mountain = fm.String("mountain") ?? "score";
+        string valley = fm.String("valley") ?? "score";
+        fm.RejectUnknown();
+        var s = r.Object("sheet");
+        var sheetName = s.String("name");
+        var sw = s.Number("widthMm");
+        var sh = s.Number("heightMm");
+        s.RejectUnknown();
+        string orientation = r.String("orientation") ?? "auto";
+        double margin = r.Number("marginMm") ?? 8;
+        double spacing = r.Number("spacingMm") ?? 3;
+        double kerf = r.Number("kerfMm") ?? 0.15;
+        var t = r.Object("tab");
+        double tabWidth = t.Number("widthMm") ?? 6;
+        double taper = t.Number("taperDeg") ?? 40;
+        t.RejectUnknown();
+        double hairline = r.Number("hairlineMm") ?? 0.05;
+        var lr = r.Object("layers");
+        var layers = new SortedDictionary<string, LayerStyle>(StringComparer.Ordinal);
+        foreach (var cls in Catalog.LineClasses)
+        {
+            var l = lr.Object(cls);
+            var d = DefaultLayers[cls];
+            string colour = l.String("colour") ?? d.Colour;
+            int pen = l.Integer("pen") ?? d.Pen;
+            int passes = l.Integer("passes") ?? d.Passes;
+            l.RejectUnknown();
+            if (!HexColour().IsMatch(colour)) throw new JobError(l.PathOf("colour"), $"must be a colour written #rrggbb (got \"{colour}\")");
+            if (pen < 1 || pen > 255) throw new JobError(l.PathOf("pen"), $"must be a pen number from 1 to 255 (got {pen})");
+            if (passes < 1 || passes > 20) throw new JobError(l.PathOf("passes"), $"must be a number of passes from 1 to 20 (got {passes})");
+            layers[cls] = new LayerStyle(colour.ToLowerInvariant(), pen, passes);
+        }
+        lr.RejectUnknown();
+        r.RejectUnknown();
+
+        Positive(r.PathOf("scale"), scale, "number n of the scale 1:n", required: true);
+        if (string.IsNullOrWhiteSpace(material)) throw new JobError(r.PathOf("material"), "must name a material; see 'tessel catalog materials'");
+        CheckChoice(fm.PathOf("mountain"), mountain, Catalog.FoldMethods.Select(f => f.Name));
+        CheckChoice(fm.PathOf("valley"), valley, Catalog.FoldMethods.Select(f => f.Name));
+        SheetSpec sheet;
+        if (sheetName is not null)
+        {
+            if (sw is not null || sh is not null) throw new JobError(s.PathOf("name"), "give either a sheet name or widthMm and heightMm, not both");
+            if (!SheetSizes.TryFind(sheetName, out double w, out double h))
+                throw new JobError(s.PathOf("name"), $"unknown sheet size \"{sheetName}\"{Suggest(sheetName, SheetSizes.All.Select(x => x.Name))}; see 'tessel catalog sheets' or give widthMm and heightMm");
+            sheet = new SheetSpec(SheetSizes.All.First(x => string.Equals(x.Name, sheetName, StringComparison.OrdinalIgnoreCase)).Name, w, h);
+        }
+        else if (sw is null && sh is null) sheet = new SheetSpec("A3", 297, 420);
+        else
+        {
+            Positive(s.PathOf("widthMm"), sw, "length in mm", required: true);
+            Positive(s.PathOf("heightMm"), sh, "length in mm", required: true);
+            sheet = new SheetSpec(null, sw!.Value, sh!.Value);
+        }
+        CheckChoice(r.PathOf("orientation"), orientation, Catalog.Orientations);
+        NonNegative(r.PathOf("marginMm"), margin, "length in mm", required: true);
+        NonNegative(r.PathOf("spacingMm"), spacing, "length in mm", required: true);
+        NonNegative(r.PathOf("kerfMm"), kerf, "length in mm", required: true);
+        if (2 * margin >= Math.Min(sheet.WidthMm, sheet.HeightMm))
+            throw new JobError(r.PathOf("marginMm"), $"leaves no room on a {Format(sheet.WidthMm)} x {Format(sheet.HeightMm)} mm sheet; use a smaller margin (got {Format(margin)})");
+        Positive(t.PathOf("widthMm"), tabWidth, "length in mm", required: true);
+        if (!(taper > 0 && taper < 90)) throw new JobError(t.PathOf("taperDeg"), $"must be an angle between 0 and 90 degrees, exclusive (got {Format(taper)})");
+        Positive(r.PathOf("hairlineMm"), hairline, "length in mm", required: true);
+        return new FabricationSpec(scale, material, new FoldMethodSpec(mountain, valley), sheet, orientation,
+            margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers);
+    }
+
+    /// <summary>Layer styles used when the job does not override them: our own palette.</summary>
+    public static readonly IReadOnlyDictionary<string, LayerStyle> DefaultLayers = new Dictionary<string, LayerStyle>
+    {
+        ["cutInner"] = new("#3b1f6e", 1, 1),
+        ["cutOutline"] = new("#14213d", 2, 1),
+        ["mountain"] = new("#b5442c", 3, 1),
+        ["valley"] = new("#2b7a78", 4, 1),
+        ["tabFold"] = new("#8a7d2b", 5, 1),
+        ["label"] = new("#6c6c6c", 6, 1),
+        ["annotation"] = new("#a3a3a3", 7, 1),
+    };
+
+    [GeneratedRegex("^#[0-9A-Fa-f]{6}$")]
+    private static partial Regex HexColour();
+
+    private static OutputsSpec ReadOutputs(FieldReader r)
+    {
+        var o = new OutputsSpec(
+            r.Bool("obj") ?? true, r.Bool("png") ?? true, r.Bool("svg") ?? true, r.Bool("dxf") ?? true,
+            r.Bool("pdf") ?? true, r.Bool("stl") ?? false, r.Bool("report") ?? true);
+        r.RejectUnknown();
+        return o;
+    }
+
+    private static JobError Missing(FieldReader r, string name, string choices) =>
+        new(r.PathOf(name), $"missing; choose one of {choices}");
+
+    private static string Names(IEnumerable<CatalogEntry> entries) => string.Join(", ", entries.Select(e => e.Name));
+
+    private static string Suggest(string value, IEnumerable<string> choices)
+    {
+        string? near = EditDistance.Nearest(value, choices);
+        return near is null ? "" : $" (did you mean \"{near}\"?)";
+    }
+
+    private static void CheckChoice(string path, string value, IEnumerable<string> choices, string prefix = "")
+    {
+        var list = choices.ToList();
+        if (list.Contains(value, StringComparer.Ordinal)) return;
+        string? near = EditDistance.Nearest(value, list);
+        string hint = near is null ? "" : $"did you mean \"{near}\"? ";
+        throw new JobError(path, $"{prefix}{hint}must be one of {string.Join(", ", list)} (got \"{value}\")");
+    }
+
+    private static void Positive(string path, double? v, string what, bool required)
+    {
+        if (v is null)
+        {
+            if (required) throw new JobError(path, $"missing; must be a positive {what}");
+            return;
+        }
+        if (!(v > 0)) throw new JobError(path, $"must be a positive {what} (got {Format(v.Value)})");
+    }
+
+    private static void NonNegative(string path, double? v, string what, bool required)
+    {
+        if (v is null)
+        {
+            if (required) throw new JobError(path, $"missing; must be a {what} >= 0");
+            return;
+        }
+        if (!(v >= 0)) throw new JobError(path, $"must be a {what} >= 0 (got {Format(v.Value)})");
+    }
+
+    private static void NonZero(string path, double? v, string what)
+    {
+        if (v is null) throw new JobError(path, $"missing; must be a non-zero {what} (negative bends downward)");
+        if (v == 0) throw new JobError(path, $"must be a non-zero {what} (got 0)");
+    }
+
+    private static void Angle(string path, double v)
+    {
+        if (!(v >= 0 && v <= 180)) throw new JobError(path, $"must be an angle from 0 to 180 degrees (got {Format(v)})");
+    }
+}

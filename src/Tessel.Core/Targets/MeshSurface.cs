@@ -1,0 +1,181 @@
+using MathNet.Numerics.LinearAlgebra;
+using Tessel.Core.Geometry;
+using Tessel.Core.Targets.Meshes;
+
+namespace Tessel.Core.Targets;
+
+/// <summary>A target given as a triangle mesh in metres, seen from above: heights by a vertical ray
+/// cast (highest hit), normals and curvatures interpolated from per-vertex values, closest points
+/// through a bounding-volume hierarchy.</summary>
+/// <remarks>
+/// Triangles are treated as oriented upward (any whose normal points down is flipped), so normals
+/// have z &gt;= 0 like every other target. Vertex normals weight each incident triangle's normal by
+/// its corner angle (Thürmer and Wüthrich, "Computing vertex normals from polygonal facets", 1998).
+/// <para>Curvatures are an ESTIMATE: at each vertex a quadric h = a u^2 + b u v + c v^2 + d u + e v is
+/// fitted by least squares to its two-ring neighbours in a frame whose h axis is the vertex normal,
+/// and the principal curvatures of that fitted graph are taken (the osculating-jet idea of Cazals and
+/// Pouget, "Estimating differential quantities using polynomial fitting of osculating jets", SGP 2003,
+/// at degree 2). Accuracy depends on the mesh's sampling and noise; on a sphere of radius R meshed
+/// with spacing h the error is of order (h/R)^2.</para></remarks>
+public sealed class MeshSurface : ITargetSurface
+{
+    private readonly TriangleMesh _mesh;
+    private readonly TriangleBvh _bvh;
+    private readonly Vec3[] _normals;
+    private readonly Curvatures[] _curvatures;
+
+    /// <param name="mesh">Mesh in metres.</param>
+    /// <param name="footprint">Plan region; null = the mesh's plan bounding box.</param>
+    /// <param name="name">File name, for the description.</param>
+    public MeshSurface(TriangleMesh mesh, Footprint? footprint, string name)
+    {
+        _mesh = OrientUp(mesh);
+        _bvh = new TriangleBvh(_mesh);
+        _normals = VertexNormals(_mesh);
+        _curvatures = VertexCurvatures(_mesh, _normals);
+        Footprint = footprint ?? PlanBounds(_mesh);
+        Name = name;
+    }
+
+    public string Name { get; }
+    public string Description => $"mesh {Name}: {_mesh.VertexCount} vertices, {_mesh.TriangleCount} triangles";
+    public Footprint Footprint { get; }
+
+    /// <summary>The mesh as used (triangles oriented upward).</summary>
+    public TriangleMesh Mesh => _mesh;
+
+    public double HeightAt(double x, double y)
+    {
+        var (t, u, v, w) = _bvh.HighestAbove(x, y);
+        if (t < 0) return double.NaN;
+        return u * Z(t, 0) + v * Z(t, 1) + w * Z(t, 2);
+    }
+
+    public Vec3 NormalAt(double x, double y)
+    {
+        var (t, u, v, w) = _bvh.HighestAbove(x, y);
+        if (t < 0) return new Vec3(double.NaN, double.NaN, double.NaN);
+        return Blend(t, u, v, w);
+    }
+
+    public Curvatures CurvaturesAt(double x, double y)
+    {
+        var (t, u, v, w) = _bvh.HighestAbove(x, y);
+        if (t < 0) return new Curvatures(double.NaN, double.NaN);
+        var (a, b, c) = Corners(t);
+        return new Curvatures(
+            u * _curvatures[a].K1 + v * _curvatures[b].K1 + w * _curvatures[c].K1,
+            u * _curvatures[a].K2 + v * _curvatures[b].K2 + w * _curvatures[c].K2);
+    }
+
+    public SurfacePoint ClosestPoint(Vec3 p)
+    {
+        var (t, u, v, w) = _bvh.Closest(p);
+        var (a, b, c) = Corners(t);
+        var q = u * Vec3.Read(_mesh.Positions, a) + v * Vec3.Read(_mesh.Positions, b) + w * Vec3.Read(_mesh.Positions, c);
+        var n = Blend(t, u, v, w);
+        double dist = (p - q).Length;
+        return new SurfacePoint(q, n, Vec3.Dot(p - q, n) >= 0 ? dist : -dist);
+    }
+
+    private (int, int, int) Corners(int t) => (_mesh.Triangles[3 * t], _mesh.Triangles[3 * t + 1], _mesh.Triangles[3 * t + 2]);
+
+    private double Z(int t, int corner) => _mesh.Positions[3 * _mesh.Triangles[3 * t + corner] + 2];
+
+    private Vec3 Blend(int t, double u, double v, double w)
+    {
+        var (a, b, c) = Corners(t);
+        return (u * _normals[a] + v * _normals[b] + w * _normals[c]).Normalized();
+    }
+
+    private static Vec3 FaceNormal(TriangleMesh m, int t)
+    {
+        var a = Vec3.Read(m.Positions, m.Triangles[3 * t]);
+        var b = Vec3.Read(m.Positions, m.Triangles[3 * t + 1]);
+        var c = Vec3.Read(m.Positions, m.Triangles[3 * t + 2]);
+        return Vec3.Cross(b - a, c - a);
+    }
+
+    private static TriangleMesh OrientUp(TriangleMesh m)
+    {
+        var tris = (int[])m.Triangles.Clone();
+        for (int t = 0; t < m.TriangleCount; t++)
+            if (FaceNormal(m, t).Z < 0) (tris[3 * t + 1], tris[3 * t + 2]) = (tris[3 * t + 2], tris[3 * t + 1]);
+        return new TriangleMesh(m.Positions, tris);
+    }
+
+    private static Footprint PlanBounds(TriangleMesh m)
+    {
+        double x0 = double.MaxValue, x1 = double.MinValue, y0 = double.MaxValue, y1 = double.MinValue;
+        for (int i = 0; i < m.VertexCount; i++)
+        {
+            x0 = Math.Min(x0, m.Positions[3 * i]); x1 = Math.Max(x1, m.Positions[3 * i]);
+            y0 = Math.Min(y0, m.Positions[3 * i + 1]); y1 = Math.Max(y1, m.Positions[3 * i + 1]);
+        }
+        if (!(x1 > x0) || !(y1 > y0)) throw new Jobs.JobError("target.mesh", "the mesh has no extent in plan (seen from above it is a line or a point)");
+        return Footprint.Polygon([new(x0, y0), new(x1, y0), new(x1, y1), new(x0, y1)]);
+    }
+
+    private static Vec3[] VertexNormals(TriangleMesh m)
+    {
+        var n = new Vec3[m.VertexCount];
+        for (int t = 0; t < m.TriangleCount; t++)
+        {
+            var fn = FaceNormal(m, t).Normalized();
+            for (int k = 0; k < 3; k++)
+            {
+                int i = m.Triangles[3 * t + k];
+                var p = Vec3.Read(m.Positions, i);
+                var e1 = Vec3.Read(m.Positions, m.Triangles[3 * t + (k + 1) % 3]) - p;
+                var e2 = Vec3.Read(m.Positions, m.Triangles[3 * t + (k + 2) % 3]) - p;
+                n[i] += Vec3.Angle(e1, e2) * fn;
+            }
+        }
+        for (int i = 0; i < n.Length; i++) n[i] = n[i].Normalized();
+        return n;
+    }
+
+    private static Curvatures[] VertexCurvatures(TriangleMesh m, Vec3[] normals)
+    {
+        var ring = new HashSet<int>[m.VertexCount];
+        for (int i = 0; i < ring.Length; i++) ring[i] = new HashSet<int>();
+        for (int t = 0; t < m.TriangleCount; t++)
+            for (int k = 0; k < 3; k++)
+                for (int j = 0; j < 3; j++)
+                    if (j != k) ring[m.Triangles[3 * t + k]].Add(m.Triangles[3 * t + j]);
+        var result = new Curvatures[m.VertexCount];
+        var near = new SortedSet<int>();
+        for (int i = 0; i < m.VertexCount; i++)
+        {
+            near.Clear();
+            foreach (int j in ring[i]) { near.Add(j); foreach (int k in ring[j]) near.Add(k); }
+            near.Remove(i);
+            result[i] = FitQuadric(m, i, normals[i], near);
+        }
+        return result;
+    }
+
+    private static Curvatures FitQuadric(TriangleMesh m, int i, Vec3 n, SortedSet<int> near)
+    {
+        if (near.Count < 5 || !n.IsFinite || n.Length == 0) return new Curvatures(0, 0);
+        var p = Vec3.Read(m.Positions, i);
+        // Any unit vector not parallel to n starts the tangent frame.
+        var helper = Math.Abs(n.X) < 0.9 ? new Vec3(1, 0, 0) : new Vec3(0, 1, 0);
+        var t1 = Vec3.Cross(helper, n).Normalized();
+        var t2 = Vec3.Cross(n, t1);
+        var a = Matrix<double>.Build.Dense(near.Count, 5);
+        var rhs = Vector<double>.Build.Dense(near.Count);
+        int row = 0;
+        foreach (int j in near)
+        {
+            var d = Vec3.Read(m.Positions, j) - p;
+            double u = Vec3.Dot(d, t1), v = Vec3.Dot(d, t2);
+            a[row, 0] = u * u; a[row, 1] = u * v; a[row, 2] = v * v; a[row, 3] = u; a[row, 4] = v;
+            rhs[row] = Vec3.Dot(d, n);
+            row++;
+        }
+        var q = a.Svd(true).Solve(rhs);
+        if (q.Any(x => !double.IsFinite(x))) return new Curvatures(0, 0);
+        return GraphSurface.CurvaturesOf(new HeightJet(0, q[3], q[4], 2 * q[0], q[1], 2 * q[2]));
+    }
+}

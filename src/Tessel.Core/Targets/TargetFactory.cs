@@ -1,0 +1,100 @@
+using System.Globalization;
+using Tessel.Core.Geometry;
+using Tessel.Core.Jobs;
+using Tessel.Core.Targets.Formulas;
+using Tessel.Core.Targets.Meshes;
+
+namespace Tessel.Core.Targets;
+
+/// <summary>Builds the target surface a job's <c>target</c> section describes, in metres, and checks
+/// that it is defined over the whole footprint.</summary>
+public static class TargetFactory
+{
+    /// <summary>Builds and checks the target.</summary>
+    /// <param name="spec">The validated target section.</param>
+    /// <param name="baseDirectory">Folder that relative image and mesh paths resolve against.</param>
+    /// <param name="decodeImage">Image reader for height maps; null when none is available.</param>
+    /// <exception cref="JobError">Bad formula, unreadable input file, or a target undefined somewhere over
+    /// its footprint (the message names the point).</exception>
+    public static ITargetSurface Build(TargetSpec spec, string baseDirectory, GrayImageDecoder? decodeImage)
+    {
+        double s = spec.MetresPerUnit;
+        var footprint = spec.Footprint is null ? null : FootprintOf(spec.Footprint, s);
+        ITargetSurface target = spec.Kind switch
+        {
+            "plane" => new PlaneSurface(footprint!, s * (spec.Rise ?? 0)),
+            "cylinder" => new CylinderSurface(footprint!, s * spec.Radius!.Value, s * spec.Rise!.Value),
+            "spherical-cap" => new SphericalCapSurface(footprint!, s * spec.Radius!.Value, s * spec.Rise!.Value),
+            "hyperbolic-paraboloid" => new HyperbolicParaboloidSurface(footprint!, s * spec.C!.Value, s * (spec.Rise ?? 0)),
+            "elliptic-paraboloid" => new EllipticParaboloidSurface(footprint!, s * spec.RadiusX!.Value, s * spec.RadiusY!.Value, s * (spec.Rise ?? 0)),
+            "sinusoidal-wave" => new SinusoidalWaveSurface(footprint!, s * spec.Amplitude!.Value, s * spec.Wavelength!.Value,
+                spec.PhaseDeg * Math.PI / 180, s * (spec.Rise ?? 0)),
+            "formula" => Formula(spec, footprint!, s),
+            "height-map" => HeightMap(spec, footprint, s, baseDirectory, decodeImage),
+            "mesh" => Mesh(spec, footprint, s, baseDirectory),
+            _ => throw new JobError("target.kind", $"unknown kind \"{spec.Kind}\""),
+        };
+        var bad = TargetDomainCheck.FirstUndefined(target);
+        if (bad is { } b)
+        {
+            string field = spec.Kind switch { "formula" => "target.formula", "mesh" => "target.mesh", "height-map" => "target.footprint", _ => "target.footprint" };
+            throw new JobError(field,
+                $"{b.What} at x = {Fmt(b.X / s)}, y = {Fmt(b.Y / s)} {spec.Units} inside the footprint; change the {(spec.Kind == "formula" ? "formula" : "parameters")} or shrink the footprint");
+        }
+        return target;
+    }
+
+    private static string Fmt(double v) => Math.Round(v, 6).ToString("0.######", CultureInfo.InvariantCulture);
+
+    /// <summary>The footprint in metres.</summary>
+    public static Footprint FootprintOf(FootprintSpec f, double metresPerUnit)
+    {
+        if (f.Corners is { } c) return Footprint.Polygon(c.Select(p => new Vec2(p[0] * metresPerUnit, p[1] * metresPerUnit)).ToArray());
+        return Footprint.Rectangle(f.Width!.Value * metresPerUnit, f.Depth!.Value * metresPerUnit);
+    }
+
+    private static FormulaSurface Formula(TargetSpec spec, Footprint footprint, double s)
+    {
+        string text = spec.Formula!;
+        try
+        {
+            return new FormulaSurface(footprint, text, FormulaParser.Parse(text), s);
+        }
+        catch (FormulaSyntaxError e)
+        {
+            throw new JobError("target.formula", $"{e.Message} in \"{text}\"");
+        }
+    }
+
+    private static string Resolve(string baseDirectory, string path) =>
+        Path.IsPathRooted(path) ? path : Path.GetFullPath(Path.Combine(baseDirectory, path));
+
+    private static HeightMapSurface HeightMap(TargetSpec spec, Footprint? footprint, double s, string baseDirectory, GrayImageDecoder? decode)
+    {
+        if (decode is null) throw new JobError("target.image", "height maps need an image reader, which this front end does not provide");
+        string path = Resolve(baseDirectory, spec.Image!);
+        if (!File.Exists(path)) throw new JobError("target.image", $"image file not found: {path}");
+        var img = decode(path);
+        if (img.Width < 2 || img.Height < 2) throw new JobError("target.image", $"the image must be at least 2 x 2 pixels (got {img.Width} x {img.Height})");
+        double lo = s * (spec.MinHeight ?? 0), hi = s * spec.MaxHeight!.Value;
+        var z = img.Levels.Select(l => lo + l * (hi - lo)).ToArray();
+        double w = s * spec.ImageWidth!.Value, d = s * spec.ImageDepth!.Value;
+        return new HeightMapSurface(footprint ?? Footprint.Rectangle(w, d), img.Width, img.Height, z, w, d);
+    }
+
+    private static MeshSurface Mesh(TargetSpec spec, Footprint? footprint, double s, string baseDirectory)
+    {
+        string path = Resolve(baseDirectory, spec.Mesh!);
+        byte[] bytes;
+        try { bytes = File.ReadAllBytes(path); }
+        catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
+        { throw new JobError("target.mesh", $"mesh file not found: {path}"); }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        { throw new JobError("target.mesh", $"cannot read {path} ({e.Message})"); }
+        string name = Path.GetFileName(path);
+        var mesh = Path.GetExtension(path).Equals(".stl", StringComparison.OrdinalIgnoreCase)
+            ? StlMeshReader.Parse(bytes, name)
+            : ObjMeshReader.Parse(System.Text.Encoding.UTF8.GetString(bytes), name);
+        return new MeshSurface(mesh.Scaled(s), footprint, name);
+    }
+}
