@@ -1,10 +1,53 @@
+using System.CommandLine;
+using Tessel.Core.Jobs;
+using Tessel.Output.Build;
+
 namespace Tessel.Cli;
 
+/// <summary>Entry point: parses the command line, runs one verb, maps failures to exit codes.</summary>
 public static class Program
 {
-    public static int Main(string[] args)
+    public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
+
+    /// <summary>Runs the command line with the given streams; returns the exit code (<see cref="ExitCodes"/>).</summary>
+    public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
     {
-        Console.Error.WriteLine("tessel: the command line is being built (see issues)");
-        return 2;
+        var root = Commands.Root(stdout, stderr);
+        var parsed = root.Parse(args);
+        if (parsed.Errors.Count > 0)
+        {
+            stderr.WriteLine($"tessel: {parsed.Errors[0].Message} (see 'tessel --help')");
+            return ExitCodes.BadInput;
+        }
+        return Guard(stderr, () => parsed.Invoke(new InvocationConfiguration
+        {
+            Output = stdout,
+            Error = stderr,
+            EnableDefaultExceptionHandler = false,
+        }));
+    }
+
+    /// <summary>Runs <paramref name="action"/>, turning known failures into one-line messages and exit codes.</summary>
+    internal static int Guard(TextWriter stderr, Func<int> action)
+    {
+        try
+        {
+            return action();
+        }
+        catch (JobError e)
+        {
+            stderr.WriteLine($"tessel: {e.Message}");
+            return ExitCodes.BadInput;
+        }
+        catch (OutputNotWritableError e)
+        {
+            stderr.WriteLine($"tessel: {e.Message}");
+            return ExitCodes.OutputNotWritable;
+        }
+        catch (Exception e)
+        {
+            stderr.WriteLine($"tessel: internal error: {e.GetType().Name}: {e.Message.ReplaceLineEndings(" ")} (please report this with your job file)");
+            return ExitCodes.InternalError;
+        }
     }
 }

@@ -1,0 +1,151 @@
+using System.CommandLine;
+using Tessel.Core.Jobs;
+using Tessel.Core.Pipeline;
+using Tessel.Core.Targets;
+using Tessel.Output.Build;
+using Tessel.Output.IO;
+
+namespace Tessel.Cli;
+
+/// <summary>The verbs and their options. Each action only parses, calls Core/Output, and prints.</summary>
+internal static class Commands
+{
+    public static RootCommand Root(TextWriter stdout, TextWriter stderr)
+    {
+        var root = new RootCommand("Tessel fits a foldable crease tessellation to a curved surface and lays it out as fabrication sheets.");
+        root.Add(Build(stdout, stderr));
+        root.Add(Scaffold(stdout));
+        root.Add(CatalogVerb(stdout));
+        root.Add(Validate(stdout));
+        return root;
+    }
+
+    private static Command Build(TextWriter stdout, TextWriter stderr)
+    {
+        var job = new Argument<string?>("job")
+        {
+            Description = "Job file (JSON with comments). Leave out to build the bundled demo, a saddle canopy.",
+            Arity = ArgumentArity.ZeroOrOne,
+        };
+        var outDir = new Option<string?>("--out")
+        {
+            Description = "Folder to write into (created if missing). Default: output/<job name> under the current folder.",
+            HelpName = "DIR",
+        };
+        var quiet = new Option<bool>("--quiet") { Description = "Print no progress lines, only the result and errors." };
+        var seed = new Option<int?>("--seed") { Description = "Seed for random choices, overriding the job's seed.", HelpName = "N" };
+        var accept = new Option<bool>("--accept-unconverged") { Description = "Write outputs even when the fit does not converge." };
+        var cmd = new Command("build", "Build a job: target, tessellation, fit, checks, sheets; write every output file.")
+        {
+            job, outDir, quiet, seed, accept,
+        };
+        cmd.SetAction(r =>
+        {
+            string? path = r.GetValue(job);
+            var loaded = path is null
+                ? JobLoader.Parse(DemoJob.Text(), "saddle-canopy.json (bundled demo)", Directory.GetCurrentDirectory())
+                : JobLoader.Load(path);
+            if (r.GetValue(seed) is int s)
+            {
+                if (s < 0) throw new JobError("--seed", $"must be a whole number >= 0 (got {s})");
+                loaded = loaded with { Seed = s };
+            }
+            if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
+            string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);
+            var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
+            var result = BuildRunner.Run(loaded, folder, progress);
+            stdout.WriteLine($"built {loaded.Name}: {result.Files.Count} files in {result.Folder}");
+            return ExitCodes.Ok;
+        });
+        return cmd;
+    }
+
+    private static Command Scaffold(TextWriter stdout)
+    {
+        var target = new Option<string>("--target")
+        {
+            Description = "Target kind: " + string.Join(", ", Catalog.TargetKinds.Select(k => k.Name)) + ".",
+            Required = true,
+            HelpName = "KIND",
+        };
+        var family = new Option<string>("--family")
+        {
+            Description = "Tessellation family: " + string.Join(", ", Catalog.Families.Select(k => k.Name)) + ".",
+            Required = true,
+            HelpName = "FAMILY",
+        };
+        var outFile = new Option<string?>("--out")
+        {
+            Description = "File to write. Default: <kind>-<family>.json in the current folder. Never overwrites.",
+            HelpName = "FILE",
+        };
+        var cmd = new Command("scaffold", "Write a commented, valid starting job file for a target kind and family.")
+        {
+            target, family, outFile,
+        };
+        cmd.SetAction(r =>
+        {
+            string kind = r.GetRequiredValue(target), fam = r.GetRequiredValue(family);
+            string text = JobScaffold.Text(kind, fam);
+            string path = Path.GetFullPath(r.GetValue(outFile) ?? $"{kind}-{fam}.json");
+            if (File.Exists(path) || Directory.Exists(path))
+                throw new JobError(path, "already exists; scaffold never overwrites, so choose another --out or move the file");
+            string? dir = Path.GetDirectoryName(path);
+            try
+            {
+                if (dir is not null) Directory.CreateDirectory(dir);
+                AtomicFile.Write(path, System.Text.Encoding.UTF8.GetBytes(text));
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                throw new OutputNotWritableError(dir ?? path, e.Message, e);
+            }
+            stdout.WriteLine($"wrote {path}");
+            return ExitCodes.Ok;
+        });
+        return cmd;
+    }
+
+    private static Command CatalogVerb(TextWriter stdout)
+    {
+        var what = new Argument<string>("list") { Description = "targets, families, materials or sheets." };
+        what.AcceptOnlyFromAmong("targets", "families", "materials", "sheets");
+        var cmd = new Command("catalog", "List what a job can name: target kinds, tessellation families, materials or sheet sizes.") { what };
+        cmd.SetAction(r =>
+        {
+            IEnumerable<CatalogEntry> entries = r.GetRequiredValue(what) switch
+            {
+                "targets" => Catalog.TargetKinds,
+                "families" => Catalog.Families,
+                "materials" => Catalog.Materials,
+                _ => SheetSizes.All.Select(s => new CatalogEntry(s.Name,
+                    $"{Mm(s.WidthMm)} x {Mm(s.HeightMm)} mm{(s.Name.StartsWith('A') || s.Name.StartsWith('B') ? " (ISO 216)" : " (US)")}")),
+            };
+            var list = entries.ToList();
+            int w = list.Max(e => e.Name.Length);
+            foreach (var e in list) stdout.WriteLine($"{e.Name.PadRight(w)}  {e.Summary}");
+            return ExitCodes.Ok;
+        });
+        return cmd;
+    }
+
+    private static string Mm(double v) => v.ToString("0.#", System.Globalization.CultureInfo.InvariantCulture);
+
+    private static Command Validate(TextWriter stdout)
+    {
+        var job = new Argument<string>("job") { Description = "Job file to check." };
+        var cmd = new Command("validate", "Check a job file: fields, target inputs, and that the target is defined over the whole footprint. Writes nothing.")
+        {
+            job,
+        };
+        cmd.SetAction(r =>
+        {
+            var loaded = JobLoader.Load(r.GetRequiredValue(job));
+            var target = TargetFactory.Build(loaded.Target, loaded.BaseDirectory, HeightMapImage.Decode);
+            var f = target.Footprint;
+            stdout.WriteLine($"OK {loaded.Name}: {target.Description}; footprint {f.Width:0.###} x {f.Depth:0.###} m; family {loaded.Tessellation.Family}");
+            return ExitCodes.Ok;
+        });
+        return cmd;
+    }
+}

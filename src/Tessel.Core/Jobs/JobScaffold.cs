@@ -1,0 +1,148 @@
+using System.Text;
+
+namespace Tessel.Core.Jobs;
+
+/// <summary>Writes a commented starting job file for a target kind and family. Every value is valid
+/// as written; the comments say what to change.</summary>
+public static class JobScaffold
+{
+    /// <summary>Job file text (JSON with comments) for <paramref name="kind"/> and <paramref name="family"/>.</summary>
+    /// <exception cref="JobError">Unknown kind ("--target") or family ("--family").</exception>
+    public static string Text(string kind, string family)
+    {
+        Check("--target", kind, Catalog.TargetKinds);
+        Check("--family", family, Catalog.Families);
+        var sb = new StringBuilder();
+        sb.Append($$"""
+            // Tessel job file, started by 'tessel scaffold'. JSON with comments and trailing commas.
+            // Every field is listed in README.md (section "Job files") and in patterns/tessel-job.schema.json.
+            {
+              // Outputs go to output/<name>/; letters, digits, '-', '_' and '.' only.
+              "name": "{{kind}}-{{family}}",
+              "description": "Describe the project and the question this model answers.",
+              "seed": 1,
+
+              "target": {
+                "kind": "{{kind}}",
+                // Length unit of every target value below: m, cm, mm, in or ft.
+                "units": "m",
+
+            """);
+        sb.Append(kind switch
+        {
+            "plane" => """
+                    // Height of the plane.
+                    "rise": 0,
+                """,
+            "cylinder" => """
+                    // Barrel vault: radius of the circle and height of the crown; the axis runs along x.
+                    "radius": 8,
+                    "rise": 3,
+                """,
+            "spherical-cap" => """
+                    // Dome: sphere radius and apex height. The footprint must fit inside the base circle.
+                    "radius": 15,
+                    "rise": 2.5,
+                """,
+            "hyperbolic-paraboloid" => """
+                    // Saddle z = rise + x*y/c: a smaller c twists more.
+                    "c": 12,
+                    "rise": 3,
+                """,
+            "elliptic-paraboloid" => """
+                    // Apex radii of curvature along x and y; negative bends upward (a bowl).
+                    "radiusX": 12,
+                    "radiusY": 20,
+                    "rise": 2,
+                """,
+            "sinusoidal-wave" => """
+                    // Corrugation along x: amplitude, wavelength and phase (degrees).
+                    "amplitude": 0.6,
+                    "wavelength": 6,
+                    "phaseDeg": 0,
+                """,
+            "formula" => """
+                    // z as a function of x and y in the units above: + - * / ^, sin cos tan asin acos atan
+                    // exp log sqrt abs, pi and e. -x^2 means -(x^2); write 2*x, not 2x.
+                    "formula": "2 + 0.03*(x^2 - y^2)",
+                """,
+            "height-map" => """
+                    // Grayscale PNG (relative to this file): black = minHeight, white = maxHeight.
+                    // Rows run from the far (+y) edge to the near edge; the image spans imageWidth x imageDepth.
+                    "image": "site-heights.png",
+                    "imageWidth": 20,
+                    "imageDepth": 15,
+                    "minHeight": 0,
+                    "maxHeight": 3,
+                """,
+            _ => """
+                    // OBJ or STL file (relative to this file) seen from above, in the units above.
+                    "mesh": "canopy.obj",
+                """,
+        });
+        sb.Append(kind switch
+        {
+            "height-map" or "mesh" => """
+
+                    // The footprint may be left out: it then covers the whole image or mesh in plan.
+                    // "footprint": { "width": 12, "depth": 10 },
+                  },
+
+                """,
+            _ => """
+
+                    // Plan region: a width x depth rectangle centred on the origin, or "corners": [[x, y], ...].
+                    "footprint": { "width": 12, "depth": 10 },
+                  },
+
+                """,
+        });
+        sb.Append($$"""
+              "tessellation": {
+                // {{string.Join(", ", Catalog.Families.Select(f => f.Name))}}
+                "family": "{{family}}",
+                "cellsX": 12,
+                "cellsY": 10,
+                // Acute sector angle of the starting cell, degrees.
+                "sectorAngleDeg": 60,
+                "orientationDeg": 0,
+              },
+
+              "fitting": {
+                // Allowed developability residual per vertex in degrees; 0 = exact.
+                "epsilonDeg": 0,
+                "starts": 4,
+                "maxIterations": 200,
+                "anchors": "none",
+                "bounds": { "minSectorAngleDeg": 10, "maxSectorAngleDeg": 170, "minEdgeLengthMm": 3 },
+              },
+
+              "fabrication": {
+                // Model scale 1:n.
+                "scale": 100,
+                // See 'tessel catalog materials'.
+                "material": "card-300",
+                "foldMethod": { "mountain": "score", "valley": "score" },
+                // See 'tessel catalog sheets', or give { "widthMm": ..., "heightMm": ... }.
+                "sheet": { "name": "A3" },
+                "orientation": "auto",
+                "marginMm": 8,
+                "spacingMm": 3,
+                "kerfMm": 0.15,
+                "tab": { "widthMm": 6, "taperDeg": 40 },
+              },
+
+              "outputs": { "obj": true, "png": true },
+            }
+
+            """);
+        return sb.ToString();
+    }
+
+    private static void Check(string option, string value, IReadOnlyList<CatalogEntry> choices)
+    {
+        if (choices.Any(c => c.Name == value)) return;
+        string? near = EditDistance.Nearest(value, choices.Select(c => c.Name));
+        throw new JobError(option, $"{(near is null ? "" : $"did you mean \"{near}\"? ")}must be one of {string.Join(", ", choices.Select(c => c.Name))} (got \"{value}\")");
+    }
+}

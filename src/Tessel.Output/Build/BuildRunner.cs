@@ -1,0 +1,122 @@
+using Tessel.Core.Jobs;
+using Tessel.Core.Pipeline;
+using Tessel.Core.Targets;
+using Tessel.Output.IO;
+using Tessel.Output.Previews;
+using Tessel.Output.Writers;
+
+namespace Tessel.Output.Build;
+
+/// <summary>What a finished build wrote.</summary>
+/// <param name="Folder">Absolute output folder.</param>
+/// <param name="Files">Relative path and size of every file written, summary.json last.</param>
+public sealed record BuildResult(string Folder, IReadOnlyList<(string Path, long Bytes)> Files);
+
+/// <summary>Runs the pipeline for one job and writes its files into one output folder.</summary>
+/// <remarks>Every stage adds files and figures to a <see cref="BuildOutput"/>; nothing touches the disk
+/// until all stages have succeeded. Then each file is written to a temporary name and renamed
+/// (<see cref="AtomicFile"/>), summary.json last, and never outside the output folder.
+/// To add a stage: compute it after the ones it needs inside <see cref="Collect"/> and add its files
+/// and figures to the <see cref="BuildOutput"/>.</remarks>
+public static class BuildRunner
+{
+    /// <summary>Name of the summary file, always written.</summary>
+    public const string SummaryFile = "summary.json";
+
+    /// <summary>Builds <paramref name="job"/> and writes its files into <paramref name="outputFolder"/>
+    /// (created if missing).</summary>
+    /// <exception cref="JobError">Bad input; nothing was written.</exception>
+    /// <exception cref="OutputNotWritableError">The folder cannot be created or written.</exception>
+    public static BuildResult Run(Job job, string outputFolder, ProgressReporter progress)
+    {
+        var output = Collect(job, progress);
+        return Write(output, job, outputFolder, progress);
+    }
+
+    /// <summary>Runs every stage and gathers the files and figures, without writing anything.</summary>
+    public static BuildOutput Collect(Job job, ProgressReporter progress)
+    {
+        var output = new BuildOutput();
+        output.AddFigure("job", "seed", (long)job.Seed);
+        output.AddFigure("job", "family", job.Tessellation.Family);
+        output.AddFigure("job", "scale", job.Fabrication.Scale);
+
+        var targetStage = TargetStage.Run(job, HeightMapImage.Decode, progress);
+        AddTarget(output, job, targetStage, progress);
+        return output;
+    }
+
+    private static void AddTarget(BuildOutput output, Job job, TargetStageResult stage, ProgressReporter progress)
+    {
+        var t = stage.Figures;
+        output.AddFigure("target", "kind", t.Kind);
+        output.AddFigure("target", "description", t.Description);
+        output.AddFigure("target", "units", job.Target.Units);
+        output.AddFigure("target", "minXM", t.MinX);
+        output.AddFigure("target", "maxXM", t.MaxX);
+        output.AddFigure("target", "minYM", t.MinY);
+        output.AddFigure("target", "maxYM", t.MaxY);
+        output.AddFigure("target", "extentXM", t.MaxX - t.MinX);
+        output.AddFigure("target", "extentYM", t.MaxY - t.MinY);
+        output.AddFigure("target", "footprintAreaM2", t.FootprintArea);
+        output.AddFigure("target", "minHeightM", t.MinHeight);
+        output.AddFigure("target", "maxHeightM", t.MaxHeight);
+        output.AddFigure("target", "heightRangeM", t.MaxHeight - t.MinHeight);
+        output.AddFigure("target", "minGaussianCurvaturePerM2", t.MinGaussianCurvature);
+        output.AddFigure("target", "maxGaussianCurvaturePerM2", t.MaxGaussianCurvature);
+        output.AddFigure("target", "minMeanCurvaturePerM", t.MinMeanCurvature);
+        output.AddFigure("target", "maxMeanCurvaturePerM", t.MaxMeanCurvature);
+        output.AddFigure("target", "curvatureSamples", (long)t.Samples);
+        output.AddFigure("target", "curvatureIsEstimate", stage.Target is MeshSurface);
+
+        if (job.Outputs.Obj)
+        {
+            progress.Step("meshing the target for target.obj");
+            var mesh = TargetMesher.Mesh(stage.Target);
+            output.AddFigure("target", "objVertices", (long)mesh.VertexCount);
+            output.AddFigure("target", "objTriangles", (long)mesh.TriangleCount);
+            output.AddFile("target.obj", ObjWriter.Write(mesh, $"Tessel target for job {job.Name}: {t.Description}\nmetres, z up"));
+        }
+        if (job.Outputs.Png)
+        {
+            progress.Step("rendering target.png");
+            output.AddFile("target.png", TargetPreview.Render(stage.Target, t, job.Name));
+        }
+    }
+
+    /// <summary>Writes gathered files and the summary into <paramref name="outputFolder"/>.</summary>
+    public static BuildResult Write(BuildOutput output, Job job, string outputFolder, ProgressReporter progress)
+    {
+        string root = Path.GetFullPath(outputFolder);
+        progress.Stage("write", root);
+        try
+        {
+            if (File.Exists(root)) throw new OutputNotWritableError(root, "a file with that name exists");
+            Directory.CreateDirectory(root);
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+        {
+            throw new OutputNotWritableError(root, e.Message, e);
+        }
+        var written = new List<(string, long)>();
+        string prefix = root.EndsWith(Path.DirectorySeparatorChar) ? root : root + Path.DirectorySeparatorChar;
+        foreach (var (rel, bytes) in output.Files.Append((SummaryFile, output.SummaryJson(job.Name, job.Description))))
+        {
+            string full = Path.GetFullPath(Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar)));
+            if (!full.StartsWith(prefix, StringComparison.Ordinal))
+                throw new InvalidOperationException($"refusing to write outside the output folder: {rel}");
+            try
+            {
+                Directory.CreateDirectory(Path.GetDirectoryName(full)!);
+                AtomicFile.Write(full, bytes);
+            }
+            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            {
+                throw new OutputNotWritableError(root, e.Message, e);
+            }
+            progress.Step($"{rel} ({bytes.Length} bytes)");
+            written.Add((rel, bytes.Length));
+        }
+        return new BuildResult(root, written);
+    }
+}

@@ -1,0 +1,31 @@
+namespace Tessel.Output.IO;
+
+/// <summary>Writes a file so that readers see either the old file or the complete new one, never a
+/// half-written one: the bytes go to a temporary name in the same folder, which is then renamed.</summary>
+public static class AtomicFile
+{
+    /// <summary>Writes <paramref name="bytes"/> to <paramref name="path"/> through a temporary sibling file.</summary>
+    /// <exception cref="IOException">Or <see cref="UnauthorizedAccessException"/> when the folder is not writable.</exception>
+    public static void Write(string path, ReadOnlySpan<byte> bytes)
+    {
+        string full = Path.GetFullPath(path);
+        string dir = Path.GetDirectoryName(full) ?? ".";
+        // Same folder, so the rename stays on one file system and is atomic; dot-prefixed and marked so
+        // a crash leaves something recognisable.
+        string temp = Path.Combine(dir, "." + Path.GetFileName(full) + "." + Environment.ProcessId + ".partial");
+        try
+        {
+            using (var fs = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None))
+            {
+                fs.Write(bytes);
+                fs.Flush(true);
+            }
+            File.Move(temp, full, overwrite: true);
+        }
+        catch
+        {
+            try { if (File.Exists(temp)) File.Delete(temp); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+            throw;
+        }
+    }
+}
