@@ -30,13 +30,20 @@ public abstract class GraphSurface : ITargetSurface
 
     /// <summary>Principal curvatures of a Monge patch: K = (fxx fyy - fxy^2) / W^4,
     /// H = ((1+fy^2) fxx - 2 fx fy fxy + (1+fx^2) fyy) / (2 W^3), W^2 = 1 + fx^2 + fy^2.</summary>
+    /// <remarks>Computed as the eigenvalues of the shape operator S = I^-1 II, written
+    /// [[a, b], [c, d]]: k = (a+d)/2 +- sqrt(((a-d)/2)^2 + b c). Unlike sqrt(H^2 - K), this keeps full
+    /// precision at umbilic points (spheres), where H^2 - K cancels to rounding noise.</remarks>
     public static Curvatures CurvaturesOf(HeightJet j)
     {
-        double w2 = 1 + j.Zx * j.Zx + j.Zy * j.Zy;
-        double w = Math.Sqrt(w2);
-        double k = (j.Zxx * j.Zyy - j.Zxy * j.Zxy) / (w2 * w2);
-        double h = ((1 + j.Zy * j.Zy) * j.Zxx - 2 * j.Zx * j.Zy * j.Zxy + (1 + j.Zx * j.Zx) * j.Zyy) / (2 * w2 * w);
-        double disc = Math.Sqrt(Math.Max(0, h * h - k));
+        double e = 1 + j.Zx * j.Zx, f = j.Zx * j.Zy, g = 1 + j.Zy * j.Zy;
+        double w2 = e + j.Zy * j.Zy;
+        double w3 = w2 * Math.Sqrt(w2);
+        double a = (g * j.Zxx - f * j.Zxy) / w3;
+        double b = (g * j.Zxy - f * j.Zyy) / w3;
+        double c = (e * j.Zxy - f * j.Zxx) / w3;
+        double d = (e * j.Zyy - f * j.Zxy) / w3;
+        double h = 0.5 * (a + d), half = 0.5 * (a - d);
+        double disc = Math.Sqrt(Math.Max(0, half * half + b * c));
         return new Curvatures(h + disc, h - disc);
     }
 

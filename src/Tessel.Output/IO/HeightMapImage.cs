@@ -17,19 +17,40 @@ public static class HeightMapImage
         using var codec = SKCodec.Create(path);
         if (codec is null) throw new JobError("target.image", $"not a readable image (expected a grayscale PNG): {path}");
         int w = codec.Info.Width, h = codec.Info.Height;
-        var info = new SKImageInfo(w, h, SKColorType.RgbaF32, SKAlphaType.Unpremul);
-        using var bitmap = new SKBitmap(info);
-        var result = codec.GetPixels(info, bitmap.GetPixels());
-        if (result is not (SKCodecResult.Success or SKCodecResult.IncompleteInput))
-            throw new JobError("target.image", $"cannot decode the image ({result}): {path}");
-        var floats = new float[w * h * 4];
-        System.Runtime.InteropServices.Marshal.Copy(bitmap.GetPixels(), floats, 0, floats.Length);
         var levels = new double[w * h];
+        // Float pixels keep 16-bit precision; codecs that cannot convert to float get 8-bit pixels.
+        if (!TryRead(codec, SKColorType.RgbaF32, w, h, out var floats))
+        {
+            if (!TryRead(codec, SKColorType.Rgba8888, w, h, out floats))
+                throw new JobError("target.image", $"cannot decode the image: {path}");
+        }
         for (int i = 0; i < levels.Length; i++)
         {
             double l = 0.2126 * floats[4 * i] + 0.7152 * floats[4 * i + 1] + 0.0722 * floats[4 * i + 2];
             levels[i] = Math.Clamp(l, 0, 1);
         }
         return new GrayImage(w, h, levels);
+    }
+
+    /// <summary>Decodes into <paramref name="type"/> and returns RGBA channels as 0..1 floats.</summary>
+    private static bool TryRead(SKCodec codec, SKColorType type, int w, int h, out float[] rgba)
+    {
+        rgba = [];
+        var info = new SKImageInfo(w, h, type, SKAlphaType.Unpremul);
+        using var bitmap = new SKBitmap(info);
+        var result = codec.GetPixels(info, bitmap.GetPixels());
+        if (result is not (SKCodecResult.Success or SKCodecResult.IncompleteInput)) return false;
+        rgba = new float[w * h * 4];
+        if (type == SKColorType.RgbaF32)
+        {
+            System.Runtime.InteropServices.Marshal.Copy(bitmap.GetPixels(), rgba, 0, rgba.Length);
+        }
+        else
+        {
+            var bytes = new byte[w * h * 4];
+            System.Runtime.InteropServices.Marshal.Copy(bitmap.GetPixels(), bytes, 0, bytes.Length);
+            for (int i = 0; i < bytes.Length; i++) rgba[i] = bytes[i] / 255f;
+        }
+        return true;
     }
 }

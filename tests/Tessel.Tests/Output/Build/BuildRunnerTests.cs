@@ -1,0 +1,87 @@
+using System.Text.Json;
+using Tessel.Core.Jobs;
+using Tessel.Core.Pipeline;
+using Tessel.Output.Build;
+
+namespace Tessel.Tests.Output.Build;
+
+public class BuildRunnerTests
+{
+    private static Job Small(string name = "small-test") => JobLoader.Parse($$"""
+        { "name": "{{name}}", "target": { "kind": "hyperbolic-paraboloid", "c": 4, "rise": 1, "footprint": { "width": 4, "depth": 3 } } }
+        """, "small.json", Path.GetTempPath());
+
+    [Fact]
+    public void WritesTargetFilesAndASummaryListingThem()
+    {
+        string dir = Path.Combine(TestPaths.NewTempFolder(), "out");
+        var result = BuildRunner.Run(Small(), dir, ProgressReporter.Silent);
+        Assert.Equal(["target.obj", "target.png", "summary.json"], result.Files.Select(f => f.Path).ToArray());
+        foreach (var (path, bytes) in result.Files) Assert.Equal(bytes, new FileInfo(Path.Combine(dir, path)).Length);
+        Assert.Equal(3, Directory.GetFiles(dir).Length); // no temporary files left behind
+
+        using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "summary.json")));
+        var files = summary.RootElement.GetProperty("files").EnumerateArray().ToList();
+        Assert.Equal(2, files.Count);
+        Assert.Equal(new FileInfo(Path.Combine(dir, "target.png")).Length, files[1].GetProperty("bytes").GetInt64());
+        var t = summary.RootElement.GetProperty("figures").GetProperty("target");
+        // z = 1 + x*y/4 over 4 x 3: corners at 1 +- 2*1.5/4 = 0.25 and 1.75.
+        Assert.Equal(0.25, t.GetProperty("minHeightM").GetDouble(), 12);
+        Assert.Equal(1.75, t.GetProperty("maxHeightM").GetDouble(), 12);
+        // Saddle K = -c^2/(c^2+x^2+y^2)^2 (do Carmo 3-3): most negative at the origin, -1/16.
+        Assert.Equal(-1.0 / 16, t.GetProperty("minGaussianCurvaturePerM2").GetDouble(), 12);
+        Assert.Equal(4, t.GetProperty("extentXM").GetDouble(), 12);
+    }
+
+    [Fact]
+    public void SameJobGivesByteIdenticalFiles()
+    {
+        string a = TestPaths.NewTempFolder(), b = TestPaths.NewTempFolder();
+        BuildRunner.Run(Small(), a, ProgressReporter.Silent);
+        BuildRunner.Run(Small(), b, ProgressReporter.Silent);
+        foreach (var name in new[] { "target.obj", "target.png", "summary.json" })
+            Assert.Equal(File.ReadAllBytes(Path.Combine(a, name)), File.ReadAllBytes(Path.Combine(b, name)));
+    }
+
+    [Fact]
+    public void BadInputWritesNothing()
+    {
+        string dir = Path.Combine(TestPaths.NewTempFolder(), "never");
+        var job = JobLoader.Parse("""{ "target": { "kind": "formula", "formula": "sqrt(x)", "footprint": { "width": 4, "depth": 3 } } }""", "bad.json", Path.GetTempPath());
+        Assert.Throws<JobError>(() => BuildRunner.Run(job, dir, ProgressReporter.Silent));
+        Assert.False(Directory.Exists(dir));
+    }
+
+    [Fact]
+    public void UnwritableOutputFolderIsReported()
+    {
+        // A folder cannot be created beneath a regular file, whatever the user's permissions.
+        string blocker = Path.Combine(TestPaths.NewTempFolder(), "a-file");
+        File.WriteAllText(blocker, "x");
+        var e = Assert.Throws<OutputNotWritableError>(() => BuildRunner.Run(Small(), Path.Combine(blocker, "out"), ProgressReporter.Silent));
+        Assert.Contains("not writable", e.Message);
+        Assert.Throws<OutputNotWritableError>(() => BuildRunner.Run(Small(), blocker, ProgressReporter.Silent));
+    }
+
+    [Fact]
+    public void OutputPathsMustStayInsideTheFolder()
+    {
+        var o = new BuildOutput();
+        Assert.Throws<ArgumentException>(() => o.AddFile("../x.txt", [1]));
+        Assert.Throws<ArgumentException>(() => o.AddFile("/etc/x", [1]));
+        Assert.Throws<ArgumentException>(() => o.AddFile("summary.json", [1]));
+        o.AddFile("sheets/a.svg", [1]);
+        Assert.Throws<ArgumentException>(() => o.AddFile("sheets/a.svg", [2]));
+    }
+
+    [Theory]
+    [InlineData("saddle-canopy.json")]
+    [InlineData("shallow-dome.json")]
+    [InlineData("barrel-vault.json")]
+    public void EveryPatternBuilds(string file)
+    {
+        var job = JobLoader.Load(Path.Combine(TestPaths.Patterns, file)) with { Outputs = new OutputsSpec(false, false, false, false, false, false, false) };
+        var output = BuildRunner.Collect(job, ProgressReporter.Silent);
+        Assert.Contains(output.Figures, f => f.Section == "target" && f.Name == "maxHeightM");
+    }
+}
