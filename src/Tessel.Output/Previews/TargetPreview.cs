@@ -137,9 +137,9 @@ public static class TargetPreview
         using var frame = new SKPaint { Color = new SKColor(0x22, 0x22, 0x22), Style = SKPaintStyle.Stroke, StrokeWidth = 1 };
         canvas.DrawRect(new SKRect(x0, top, x0 + w, top + h), frame);
         canvas.DrawText("height", x0, top - 6, SKTextAlign.Left, font, ink);
-        canvas.DrawText(Length(fig.MaxHeight), x0 + w + 6, top + 10, SKTextAlign.Left, font, ink);
-        canvas.DrawText(Length(0.5 * (fig.MinHeight + fig.MaxHeight)), x0 + w + 6, top + h / 2 + 4, SKTextAlign.Left, font, ink);
-        canvas.DrawText(Length(fig.MinHeight), x0 + w + 6, top + h, SKTextAlign.Left, font, ink);
+        canvas.DrawText(Height(fig.MaxHeight), x0 + w + 6, top + 10, SKTextAlign.Left, font, ink);
+        canvas.DrawText(Height(0.5 * (fig.MinHeight + fig.MaxHeight)), x0 + w + 6, top + h / 2 + 4, SKTextAlign.Left, font, ink);
+        canvas.DrawText(Height(fig.MinHeight), x0 + w + 6, top + h, SKTextAlign.Left, font, ink);
         canvas.DrawText("K from", x0, top + h + 30, SKTextAlign.Left, font, ink);
         canvas.DrawText($"{Sci(fig.MinGaussianCurvature)} to", x0, top + h + 46, SKTextAlign.Left, font, ink);
         canvas.DrawText($"{Sci(fig.MaxGaussianCurvature)} 1/m²", x0, top + h + 62, SKTextAlign.Left, font, ink);
@@ -165,6 +165,9 @@ public static class TargetPreview
         Math.Abs(metres) >= 1 || metres == 0
             ? metres.ToString("0.###", CultureInfo.InvariantCulture) + " m"
             : (metres * 1000).ToString("0.#", CultureInfo.InvariantCulture) + " mm";
+
+    /// <summary>Heights always in metres so the colour bar reads as one scale.</summary>
+    private static string Height(double metres) => metres.ToString("0.###", CultureInfo.InvariantCulture) + " m";
 
     private static string Sci(double v) => Math.Abs(v) < 1e-12 ? "0" : v.ToString("0.####", CultureInfo.InvariantCulture);
 }
