@@ -61,14 +61,15 @@ public sealed class LineStyleTable
     /// <summary>Tessel's default table (our own colours, layer names and dash choices).</summary>
     public static LineStyleTable Default { get; } = new(new Dictionary<LineClass, LineStyle>
     {
-        // Grey levels (Rec. 601 luma) in the comments; continuous classes are 20 / 62 / 104 / 146.
+        // Grey levels (Rec. 601 luma) in the comments; continuous classes are 20 / 62 / 105 / 149:
+        // cut outline darkest, then the notes (they carry the cautions, so they must read well).
         [LineClass.CutOutline] = new("Cut: part outline", "TS-CUT-EDGE", "#141414", 7, [], LineOperation.Cut),          // 20
-        [LineClass.CutInner] = new("Cut: inside a part", "TS-CUT-HOLE", "#5B2380", 6, [], LineOperation.Cut),           // 62
+        [LineClass.CutInner] = new("Cut: inside a part", "TS-CUT-HOLE", "#8B48BE", 6, [], LineOperation.Cut),           // 105
         [LineClass.Mountain] = new("Mountain fold", "TS-CREASE-MTN", "#C4391C", 1, [24, 3, 0.5, 3], LineOperation.Score),  // 95
         [LineClass.Valley] = new("Valley fold", "TS-CREASE-VLY", "#2E8FE6", 5, [12, 3], LineOperation.Score),            // 124
         [LineClass.TabFold] = new("Glue tab fold", "TS-CREASE-TAB", "#3F9A3B", 3, [24, 3, 0.5, 3, 0.5, 3], LineOperation.Score), // 116
-        [LineClass.Label] = new("Label (marked)", "TS-MARK-TEXT", "#976400", 30, [], LineOperation.Mark),                // 104
-        [LineClass.Annotation] = new("Notes (print only)", "TS-NOTE-PRINT", "#8A949E", 8, [], LineOperation.DrawOnly),  // 146
+        [LineClass.Label] = new("Label (marked)", "TS-MARK-TEXT", "#C49420", 30, [], LineOperation.Mark),                // 149
+        [LineClass.Annotation] = new("Notes (print only)", "TS-NOTE-PRINT", "#34404C", 8, [], LineOperation.DrawOnly),  // 62
     }, DefaultStrokeWidthMm, DefaultDashUnitMm);
 
     /// <summary>A copy with one class's style replaced.</summary>

@@ -77,7 +77,8 @@ public class StrokeFontTests
         var lower = StrokeFont.Layout("valley fold 90\u00B0", new Vec2(1, 2), 4);
         var upper = StrokeFont.Layout("VALLEY FOLD 90\u00B0", new Vec2(1, 2), 4);
         Assert.Equal(upper.Length, lower.Length);
-        for (int i = 0; i < upper.Length; i++) Assert.Equal(upper[i], lower[i]);
+        for (int i = 0; i < upper.Length; i++)
+            Assert.Equal(upper[i].Select(p => (p.X, p.Y)), lower[i].Select(p => (p.X, p.Y)));
     }
 
     [Fact]
