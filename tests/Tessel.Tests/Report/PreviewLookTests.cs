@@ -1,0 +1,20 @@
+using Tessel.Output.Report;
+
+namespace Tessel.Tests.Report;
+
+public class PreviewLookTests
+{
+    [Fact]
+    public void WritesEveryPreviewToAFolder()
+    {
+        var dir = Environment.GetEnvironmentVariable("TESSEL_REPORT_LOOK_DIR") ?? Path.Combine(Path.GetTempPath(), "tessel-report-look");
+        Directory.CreateDirectory(dir);
+        var m = ReportDemoData.Build();
+        File.WriteAllBytes(Path.Combine(dir, "model.png"), FoldedModelPreview.Render(m).Image.Png);
+        File.WriteAllBytes(Path.Combine(dir, "pattern.png"), CreasePatternPreview.Render(m).Png);
+        File.WriteAllBytes(Path.Combine(dir, "pareto.png"), ParetoPlot.Render(m.ParetoFront).Png);
+        File.WriteAllBytes(Path.Combine(dir, "convergence.png"), ConvergencePlot.Render(m.Convergence).Png);
+        File.WriteAllBytes(Path.Combine(dir, "sheet.png"), SheetThumbnail.Render(m.Sheets[0]).Png);
+        Assert.True(File.Exists(Path.Combine(dir, "sheet.png")));
+    }
+}
