@@ -17,9 +17,7 @@ public static class FoldedModelPreview
     public static ModelPreview Render(ReportModel model, int width = 960, int height = 620)
     {
         model.Validate();
-        var dev = model.VertexDeviationM;
-        double min = dev.Length == 0 ? 0 : dev.Min();
-        double max = dev.Length == 0 ? 0 : dev.Max();
+        var (min, max) = DeviationRange.Of(model);
 
         using var pc = new PreviewCanvas(width, height);
         var c = pc.Canvas;
