@@ -29,7 +29,8 @@ public static class ConvergencePlot
         var (_, _, xt) = XTicks(steps);
         var (dl, dh) = Decades(steps);
         int every = Math.Max(1, (dh - dl + 7) / 8); // at most about eight labelled decades
-        var yt = Enumerable.Range(dl, dh - dl + 1).Where(d => (d - dl) % every == 0).Select(d => Math.Pow(10, d)).ToArray();
+        // Count the labelled decades down from the top so the top edge always carries a label.
+        var yt = Enumerable.Range(dl, dh - dl + 1).Where(d => (dh - d) % every == 0).Select(d => Math.Pow(10, d)).ToArray();
         axes.Draw(pc, xt, xt.Length > 1 ? xt[1] - xt[0] : 1, yt,
             y => "1e" + ((int)Math.Round(Math.Log10(y))).ToString(CultureInfo.InvariantCulture),
             "iteration", "value (log scale)");

@@ -47,7 +47,7 @@ public static class MarkdownSummaryWriter
 
         sb.Append("## Cautions\n\n");
         Items(sb, model.Cautions, "None given.");
-        return sb.ToString();
+        return sb.ToString().TrimEnd('\n') + "\n";
     }
 
     private static void Items(StringBuilder sb, string[] items, string empty)
