@@ -132,6 +132,8 @@ public static partial class JobLoader
                     area += a[0] * b[1] - a[1] * b[0];
                 }
                 if (Math.Abs(area) <= 0) throw new JobError(fr.PathOf("corners"), "the polygon has zero area; list its corners in order");
+                if (FirstCrossing(corners) is { } x)
+                    throw new JobError(fr.PathOf("corners"), $"the polygon's edges {x.A + 1} and {x.B + 1} cross; list the corners in order around the outline");
             }
             else
             {
@@ -184,6 +186,23 @@ public static partial class JobLoader
         }
         return new TargetSpec(kind, units, radius, rise, c, rx, ry, amplitude, wavelength, phase, formula, image,
             imageWidth, imageDepth, minHeight, maxHeight, mesh, footprint);
+    }
+
+    /// <summary>The first pair of non-adjacent polygon edges (edge i runs from corner i to i+1) that
+    /// touch or cross; null for a simple polygon.</summary>
+    private static (int A, int B)? FirstCrossing(double[][] c)
+    {
+        int n = c.Length;
+        static double Orient(double[] p, double[] q, double[] r) => (q[0] - p[0]) * (r[1] - p[1]) - (q[1] - p[1]) * (r[0] - p[0]);
+        for (int i = 0; i < n; i++)
+            for (int j = i + 2; j < n; j++)
+            {
+                if (i == 0 && j == n - 1) continue; // these two share corner 0
+                double[] a = c[i], b = c[(i + 1) % n], p = c[j], q = c[(j + 1) % n];
+                double d1 = Orient(a, b, p), d2 = Orient(a, b, q), d3 = Orient(p, q, a), d4 = Orient(p, q, b);
+                if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return (i, j);
+            }
+        return null;
     }
 
     private static TessellationSpec ReadTessellation(FieldReader r)
