@@ -292,7 +292,9 @@ public static partial class JobLoader
         foreach (var cls in Catalog.LineClasses)
         {
             var l = lr.Object(cls);
-            var d = DefaultLayers[cls];
+            // A line class added to the sheet model later gets a plain black layer until it is given a
+            // default here (and in the schema: a test checks that).
+            var d = DefaultLayers.TryGetValue(cls, out var known) ? known : new LayerStyle("#000000", 8 + layers.Count, 1);
             string colour = l.String("colour") ?? d.Colour;
             int pen = l.Integer("pen") ?? d.Pen;
             int passes = l.Integer("passes") ?? d.Passes;
