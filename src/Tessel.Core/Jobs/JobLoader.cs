@@ -116,6 +116,13 @@ public static partial class JobLoader
         CheckChoice(r.PathOf("kind"), kind, Catalog.TargetKinds.Select(k => k.Name));
         CheckChoice(r.PathOf("units"), units, Geometry.Units.Known);
         string len = $"length in {units}";
+        // A parameter that the kind ignores is almost always a mistake (a kind changed, a field copied
+        // from another job), so it is reported rather than silently dropped.
+        foreach (var field in KindParameters.Values.SelectMany(f => f).Distinct())
+        {
+            if (r.Has(field) && !KindParameters[kind].Contains(field))
+                throw new JobError(r.PathOf(field), $"is not used by kind \"{kind}\"; remove it (that kind takes {(KindParameters[kind].Length == 0 ? "no parameters" : string.Join(", ", KindParameters[kind]))})");
+        }
 
         FootprintSpec? footprint = null;
         if (hasFootprint)
@@ -204,6 +211,20 @@ public static partial class JobLoader
             }
         return null;
     }
+
+    /// <summary>Kind-specific target parameters; kind, units and footprint apply to every kind.</summary>
+    private static readonly Dictionary<string, string[]> KindParameters = new()
+    {
+        ["plane"] = ["rise"],
+        ["cylinder"] = ["radius", "rise"],
+        ["spherical-cap"] = ["radius", "rise"],
+        ["hyperbolic-paraboloid"] = ["c", "rise"],
+        ["elliptic-paraboloid"] = ["radiusX", "radiusY", "rise"],
+        ["sinusoidal-wave"] = ["amplitude", "wavelength", "phaseDeg", "rise"],
+        ["formula"] = ["formula"],
+        ["height-map"] = ["image", "imageWidth", "imageDepth", "minHeight", "maxHeight"],
+        ["mesh"] = ["mesh"],
+    };
 
     private static TessellationSpec ReadTessellation(FieldReader r)
     {

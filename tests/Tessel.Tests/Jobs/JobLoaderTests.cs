@@ -254,3 +254,14 @@ public class FootprintValidationTests
         Assert.Contains("not both", e.Message);
     }
 }
+
+public class KindParameterTests
+{
+    [Fact]
+    public void ParameterOfAnotherKindIsReported()
+    {
+        var e = Assert.Throws<JobError>(() => JobLoader.Parse(
+            """{ "target": { "kind": "formula", "formula": "x*y", "radius": 3, "footprint": { "width": 4, "depth": 3 } } }""", "t.json", Path.GetTempPath()));
+        Assert.Equal("target.radius: is not used by kind \"formula\"; remove it (that kind takes formula)", e.Message);
+    }
+}
