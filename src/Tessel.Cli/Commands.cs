@@ -33,7 +33,7 @@ internal static class Commands
             HelpName = "DIR",
         };
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress lines, only the result and errors." };
-        var seed = new Option<int?>("--seed") { Description = "Seed for random choices, overriding the job's seed.", HelpName = "N" };
+        var seed = new Option<int?>("--seed") { Description = "Seed for random choices, overriding the job's seed and fitting.seed.", HelpName = "N" };
         var accept = new Option<bool>("--accept-unconverged") { Description = "Write outputs even when the fit does not converge." };
         var cmd = new Command("build", "Build a job: target, tessellation, fit, checks, sheets; write every output file.")
         {
@@ -48,7 +48,7 @@ internal static class Commands
             if (r.GetValue(seed) is int s)
             {
                 if (s < 0) throw new JobError("--seed", $"must be a whole number >= 0 (got {s})");
-                loaded = loaded with { Seed = s };
+                loaded = loaded with { Seed = s, Fitting = loaded.Fitting with { Seed = s } };
             }
             if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
             string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);

@@ -116,6 +116,13 @@ public static partial class JobLoader
         CheckChoice(r.PathOf("kind"), kind, Catalog.TargetKinds.Select(k => k.Name));
         CheckChoice(r.PathOf("units"), units, Geometry.Units.Known);
         string len = $"length in {units}";
+        // A parameter that the kind ignores is almost always a mistake (a kind changed, a field copied
+        // from another job), so it is reported rather than silently dropped.
+        foreach (var field in KindParameters.Values.SelectMany(f => f).Distinct())
+        {
+            if (r.Has(field) && !KindParameters[kind].Contains(field))
+                throw new JobError(r.PathOf(field), $"is not used by kind \"{kind}\"; remove it (that kind takes {(KindParameters[kind].Length == 0 ? "no parameters" : string.Join(", ", KindParameters[kind]))})");
+        }
 
         FootprintSpec? footprint = null;
         if (hasFootprint)
@@ -132,6 +139,8 @@ public static partial class JobLoader
                     area += a[0] * b[1] - a[1] * b[0];
                 }
                 if (Math.Abs(area) <= 0) throw new JobError(fr.PathOf("corners"), "the polygon has zero area; list its corners in order");
+                if (FirstCrossing(corners) is { } x)
+                    throw new JobError(fr.PathOf("corners"), $"the polygon's edges {x.A + 1} and {x.B + 1} cross; list the corners in order around the outline");
             }
             else
             {
@@ -185,6 +194,37 @@ public static partial class JobLoader
         return new TargetSpec(kind, units, radius, rise, c, rx, ry, amplitude, wavelength, phase, formula, image,
             imageWidth, imageDepth, minHeight, maxHeight, mesh, footprint);
     }
+
+    /// <summary>The first pair of non-adjacent polygon edges (edge i runs from corner i to i+1) that
+    /// touch or cross; null for a simple polygon.</summary>
+    private static (int A, int B)? FirstCrossing(double[][] c)
+    {
+        int n = c.Length;
+        static double Orient(double[] p, double[] q, double[] r) => (q[0] - p[0]) * (r[1] - p[1]) - (q[1] - p[1]) * (r[0] - p[0]);
+        for (int i = 0; i < n; i++)
+            for (int j = i + 2; j < n; j++)
+            {
+                if (i == 0 && j == n - 1) continue; // these two share corner 0
+                double[] a = c[i], b = c[(i + 1) % n], p = c[j], q = c[(j + 1) % n];
+                double d1 = Orient(a, b, p), d2 = Orient(a, b, q), d3 = Orient(p, q, a), d4 = Orient(p, q, b);
+                if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return (i, j);
+            }
+        return null;
+    }
+
+    /// <summary>Kind-specific target parameters; kind, units and footprint apply to every kind.</summary>
+    private static readonly Dictionary<string, string[]> KindParameters = new()
+    {
+        ["plane"] = ["rise"],
+        ["cylinder"] = ["radius", "rise"],
+        ["spherical-cap"] = ["radius", "rise"],
+        ["hyperbolic-paraboloid"] = ["c", "rise"],
+        ["elliptic-paraboloid"] = ["radiusX", "radiusY", "rise"],
+        ["sinusoidal-wave"] = ["amplitude", "wavelength", "phaseDeg", "rise"],
+        ["formula"] = ["formula"],
+        ["height-map"] = ["image", "imageWidth", "imageDepth", "minHeight", "maxHeight"],
+        ["mesh"] = ["mesh"],
+    };
 
     private static TessellationSpec ReadTessellation(FieldReader r)
     {
@@ -273,7 +313,9 @@ public static partial class JobLoader
         foreach (var cls in Catalog.LineClasses)
         {
             var l = lr.Object(cls);
-            var d = DefaultLayers[cls];
+            // A line class added to the sheet model later gets a plain black layer until it is given a
+            // default here (and in the schema: a test checks that).
+            var d = DefaultLayers.TryGetValue(cls, out var known) ? known : new LayerStyle("#000000", 8 + layers.Count, 1);
             string colour = l.String("colour") ?? d.Colour;
             int pen = l.Integer("pen") ?? d.Pen;
             int passes = l.Integer("passes") ?? d.Passes;

@@ -30,6 +30,12 @@ public sealed class HeightMapSurface : GraphSurface
         _dx = width / columns; _dy = depth / rows;
     }
 
+    /// <summary>A height map from gray levels (0 = black = <paramref name="minHeight"/>, 1 = white =
+    /// <paramref name="maxHeight"/>), all lengths in metres.</summary>
+    public static HeightMapSurface FromLevels(Footprint footprint, int columns, int rows, double[] levels,
+        double width, double depth, double minHeight, double maxHeight) =>
+        new(footprint, columns, rows, levels.Select(l => minHeight + l * (maxHeight - minHeight)).ToArray(), width, depth);
+
     public int Columns { get; }
     public int Rows { get; }
     public double Width { get; }

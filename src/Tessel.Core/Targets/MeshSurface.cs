@@ -1,4 +1,3 @@
-using MathNet.Numerics.LinearAlgebra;
 using Tessel.Core.Geometry;
 using Tessel.Core.Targets.Meshes;
 
@@ -163,19 +162,62 @@ public sealed class MeshSurface : ITargetSurface
         var helper = Math.Abs(n.X) < 0.9 ? new Vec3(1, 0, 0) : new Vec3(0, 1, 0);
         var t1 = Vec3.Cross(helper, n).Normalized();
         var t2 = Vec3.Cross(n, t1);
-        var a = Matrix<double>.Build.Dense(near.Count, 5);
-        var rhs = Vector<double>.Build.Dense(near.Count);
-        int row = 0;
+        // Lengths are divided by the mean neighbour distance so the normal equations stay well scaled.
+        double scale = 0;
+        foreach (int j in near) scale += (Vec3.Read(m.Positions, j) - p).Length;
+        scale /= near.Count;
+        if (!(scale > 0)) return new Curvatures(0, 0);
+        var ata = new double[5, 5];
+        var atb = new double[5];
+        Span<double> row = stackalloc double[5];
         foreach (int j in near)
         {
-            var d = Vec3.Read(m.Positions, j) - p;
-            double u = Vec3.Dot(d, t1), v = Vec3.Dot(d, t2);
-            a[row, 0] = u * u; a[row, 1] = u * v; a[row, 2] = v * v; a[row, 3] = u; a[row, 4] = v;
-            rhs[row] = Vec3.Dot(d, n);
-            row++;
+            var d = (Vec3.Read(m.Positions, j) - p) / scale;
+            double u = Vec3.Dot(d, t1), v = Vec3.Dot(d, t2), h = Vec3.Dot(d, n);
+            row[0] = u * u; row[1] = u * v; row[2] = v * v; row[3] = u; row[4] = v;
+            for (int r = 0; r < 5; r++)
+            {
+                atb[r] += row[r] * h;
+                for (int c = 0; c < 5; c++) ata[r, c] += row[r] * row[c];
+            }
         }
-        var q = a.Svd(true).Solve(rhs);
-        if (q.Any(x => !double.IsFinite(x))) return new Curvatures(0, 0);
-        return GraphSurface.CurvaturesOf(new HeightJet(0, q[3], q[4], 2 * q[0], q[1], 2 * q[2]));
+        var q = SolveSmall(ata, atb);
+        if (q is null) return new Curvatures(0, 0);
+        // Undo the scaling: quadratic coefficients carry 1/scale, linear ones none.
+        return GraphSurface.CurvaturesOf(new HeightJet(0, q[3], q[4], 2 * q[0] / scale, q[1] / scale, 2 * q[2] / scale));
+    }
+
+    /// <summary>Solves the small dense system a x = b by Gaussian elimination with partial pivoting;
+    /// null when it is singular (neighbours on a line).</summary>
+    private static double[]? SolveSmall(double[,] a, double[] b)
+    {
+        int n = b.Length;
+        double norm = 0;
+        for (int r = 0; r < n; r++) for (int c = 0; c < n; c++) norm = Math.Max(norm, Math.Abs(a[r, c]));
+        for (int k = 0; k < n; k++)
+        {
+            int piv = k;
+            for (int r = k + 1; r < n; r++) if (Math.Abs(a[r, k]) > Math.Abs(a[piv, k])) piv = r;
+            if (Math.Abs(a[piv, k]) <= 1e-12 * norm) return null;
+            if (piv != k)
+            {
+                for (int c = 0; c < n; c++) (a[k, c], a[piv, c]) = (a[piv, c], a[k, c]);
+                (b[k], b[piv]) = (b[piv], b[k]);
+            }
+            for (int r = k + 1; r < n; r++)
+            {
+                double f = a[r, k] / a[k, k];
+                for (int c = k; c < n; c++) a[r, c] -= f * a[k, c];
+                b[r] -= f * b[k];
+            }
+        }
+        var x = new double[n];
+        for (int r = n - 1; r >= 0; r--)
+        {
+            double sum = b[r];
+            for (int c = r + 1; c < n; c++) sum -= a[r, c] * x[c];
+            x[r] = sum / a[r, r];
+        }
+        return x.All(double.IsFinite) ? x : null;
     }
 }

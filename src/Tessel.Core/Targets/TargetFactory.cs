@@ -76,10 +76,9 @@ public static class TargetFactory
         if (!File.Exists(path)) throw new JobError("target.image", $"image file not found: {path}");
         var img = decode(path);
         if (img.Width < 2 || img.Height < 2) throw new JobError("target.image", $"the image must be at least 2 x 2 pixels (got {img.Width} x {img.Height})");
-        double lo = s * (spec.MinHeight ?? 0), hi = s * spec.MaxHeight!.Value;
-        var z = img.Levels.Select(l => lo + l * (hi - lo)).ToArray();
         double w = s * spec.ImageWidth!.Value, d = s * spec.ImageDepth!.Value;
-        return new HeightMapSurface(footprint ?? Footprint.Rectangle(w, d), img.Width, img.Height, z, w, d);
+        return HeightMapSurface.FromLevels(footprint ?? Footprint.Rectangle(w, d), img.Width, img.Height, img.Levels, w, d,
+            s * (spec.MinHeight ?? 0), s * spec.MaxHeight!.Value);
     }
 
     private static MeshSurface Mesh(TargetSpec spec, Footprint? footprint, double s, string baseDirectory)

@@ -226,3 +226,42 @@ public class JobLoaderTests
         Assert.Null(EditDistance.Nearest("zzzzzz", ["radius", "rise"]));
     }
 }
+
+public class FootprintValidationTests
+{
+    [Fact]
+    public void SelfCrossingPolygonIsRejected()
+    {
+        // A bow tie: edge 1 (0,0)-(4,3) and edge 3 (4,0)-(0,4) cross.
+        var e = Assert.Throws<JobError>(() => JobLoader.Parse(
+            """{ "target": { "kind": "plane", "footprint": { "corners": [[0, 0], [4, 3], [4, 0], [0, 4]] } } }""", "t.json", Path.GetTempPath()));
+        Assert.Equal("target.footprint.corners", e.Where);
+        Assert.Contains("edges 1 and 3 cross", e.Message);
+    }
+
+    [Fact]
+    public void SimplePolygonIsAccepted()
+    {
+        var job = JobLoader.Parse("""{ "target": { "kind": "plane", "footprint": { "corners": [[0, 0], [4, 0], [5, 2], [2, 4], [-1, 2]] } } }""", "t.json", Path.GetTempPath());
+        Assert.Equal(5, job.Target.Footprint!.Corners!.Length);
+    }
+
+    [Fact]
+    public void WidthWithCornersIsAmbiguous()
+    {
+        var e = Assert.Throws<JobError>(() => JobLoader.Parse(
+            """{ "target": { "kind": "plane", "footprint": { "width": 3, "corners": [[0, 0], [4, 0], [0, 3]] } } }""", "t.json", Path.GetTempPath()));
+        Assert.Contains("not both", e.Message);
+    }
+}
+
+public class KindParameterTests
+{
+    [Fact]
+    public void ParameterOfAnotherKindIsReported()
+    {
+        var e = Assert.Throws<JobError>(() => JobLoader.Parse(
+            """{ "target": { "kind": "formula", "formula": "x*y", "radius": 3, "footprint": { "width": 4, "depth": 3 } } }""", "t.json", Path.GetTempPath()));
+        Assert.Equal("target.radius: is not used by kind \"formula\"; remove it (that kind takes formula)", e.Message);
+    }
+}

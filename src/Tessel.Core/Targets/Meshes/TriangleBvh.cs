@@ -13,8 +13,11 @@ public sealed class TriangleBvh
     private const int LeafSize = 4;
     private readonly TriangleMesh _mesh;
     private readonly int[] _order;
-    private readonly List<double> _box = new();
-    private readonly List<int> _left = new(), _start = new(), _count = new();
+    // Filled as lists while building, then frozen into arrays for fast queries.
+    private List<double>? _boxList = new();
+    private List<int>? _leftList = new(), _startList = new(), _countList = new();
+    private readonly double[] _box;
+    private readonly int[] _left, _start, _count;
 
     public TriangleBvh(TriangleMesh mesh)
     {
@@ -27,15 +30,20 @@ public sealed class TriangleBvh
                 centroid[3 * t + k] = (Coord(t, 0, k) + Coord(t, 1, k) + Coord(t, 2, k)) / 3;
         NewNode();
         Build(0, 0, n, centroid);
+        _box = _boxList!.ToArray(); _left = _leftList!.ToArray(); _start = _startList!.ToArray(); _count = _countList!.ToArray();
+        _boxList = null; _leftList = _startList = _countList = null;
     }
+
+    /// <summary>Deepest possible tree for int-sized meshes is far below this; sized for the query stacks.</summary>
+    private const int MaxStack = 128;
 
     private double Coord(int tri, int corner, int axis) => _mesh.Positions[3 * _mesh.Triangles[3 * tri + corner] + axis];
 
     private int NewNode()
     {
-        for (int k = 0; k < 6; k++) _box.Add(0);
-        _left.Add(-1); _start.Add(0); _count.Add(0);
-        return _left.Count - 1;
+        for (int k = 0; k < 6; k++) _boxList!.Add(0);
+        _leftList!.Add(-1); _startList!.Add(0); _countList!.Add(0);
+        return _leftList.Count - 1;
     }
 
     private void Build(int node, int start, int count, double[] centroid)
@@ -57,10 +65,10 @@ public sealed class TriangleBvh
                 clo[k] = Math.Min(clo[k], centroid[3 * t + k]); chi[k] = Math.Max(chi[k], centroid[3 * t + k]);
             }
         }
-        for (int k = 0; k < 3; k++) { _box[6 * node + k] = lo[k]; _box[6 * node + 3 + k] = hi[k]; }
+        for (int k = 0; k < 3; k++) { _boxList![6 * node + k] = lo[k]; _boxList![6 * node + 3 + k] = hi[k]; }
         if (count <= LeafSize)
         {
-            _start[node] = start; _count[node] = count;
+            _startList![node] = start; _countList![node] = count;
             return;
         }
         int axis = 0;
@@ -74,7 +82,7 @@ public sealed class TriangleBvh
         }));
         int left = NewNode();
         NewNode();
-        _left[node] = left;
+        _leftList![node] = left;
         Build(left, start, half, centroid);
         Build(left + 1, start + half, count - half, centroid);
     }
@@ -96,11 +104,12 @@ public sealed class TriangleBvh
     {
         double best = double.MaxValue;
         (int, double, double, double) result = (-1, 0, 0, 0);
-        var stack = new Stack<int>();
-        stack.Push(0);
-        while (stack.Count > 0)
+        Span<int> stack = stackalloc int[MaxStack];
+        int top = 0;
+        stack[top++] = 0;
+        while (top > 0)
         {
-            int node = stack.Pop();
+            int node = stack[--top];
             if (BoxDistanceSquared(node, p) > best) continue;
             if (_left[node] < 0)
             {
@@ -117,7 +126,7 @@ public sealed class TriangleBvh
             int l = _left[node], r = l + 1;
             double dl = BoxDistanceSquared(l, p), dr = BoxDistanceSquared(r, p);
             // Visit the nearer child first (pushed last).
-            if (dl <= dr) { stack.Push(r); stack.Push(l); } else { stack.Push(l); stack.Push(r); }
+            if (dl <= dr) { stack[top++] = r; stack[top++] = l; } else { stack[top++] = l; stack[top++] = r; }
         }
         return result;
     }
@@ -128,14 +137,15 @@ public sealed class TriangleBvh
     {
         double bestZ = double.NegativeInfinity;
         (int, double, double, double) result = (-1, 0, 0, 0);
-        var stack = new Stack<int>();
-        stack.Push(0);
-        while (stack.Count > 0)
+        Span<int> stack = stackalloc int[MaxStack];
+        int top = 0;
+        stack[top++] = 0;
+        while (top > 0)
         {
-            int node = stack.Pop();
+            int node = stack[--top];
             if (x < _box[6 * node] || x > _box[6 * node + 3] || y < _box[6 * node + 1] || y > _box[6 * node + 4]) continue;
             if (_box[6 * node + 5] <= bestZ) continue;
-            if (_left[node] >= 0) { stack.Push(_left[node]); stack.Push(_left[node] + 1); continue; }
+            if (_left[node] >= 0) { stack[top++] = _left[node]; stack[top++] = _left[node] + 1; continue; }
             for (int i = _start[node]; i < _start[node] + _count[node]; i++)
             {
                 int t = _order[i];

@@ -12,6 +12,7 @@ public class ObjWriterTests
         double[] pos = [0, 0, 0, 1, 0, 0, 1, 1, 0.1, 0, 1, 0];
         int[][] faces = [[0, 1, 2, 3], [0, 2, 3]];
         var text = Encoding.UTF8.GetString(ObjWriter.Write(pos, faces, [new ObjWriter.Group("panels", [1])], "hello"));
+        // Wavefront OBJ: "v x y z", "f i j k ..." with 1-based indices, "g name" (value from memory).
         Assert.Equal("# hello\nv 0 0 0\nv 1 0 0\nv 1 1 0.1\nv 0 1 0\nf 1 2 3 4\ng panels\nf 1 3 4\n", text);
     }
 

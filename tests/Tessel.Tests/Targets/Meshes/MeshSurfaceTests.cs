@@ -122,6 +122,8 @@ public class MeshSurfaceTests
     [Fact]
     public void ObjReaderFanTriangulatesAndAcceptsNegativeIndices()
     {
+        // OBJ face corners may be i, i/t, i//n or i/t/n; negative i counts back from the latest vertex
+        // (Wavefront OBJ format; value from memory).
         string obj = """
             # a square as one quad, then a triangle by negative indices with texture/normal parts
             v 0 0 0
@@ -164,6 +166,8 @@ public class MeshSurfaceTests
     private static IEnumerable<float> Corner(TriangleMesh m, int t, int k) =>
         Enumerable.Range(0, 3).Select(a => (float)m.Positions[3 * m.Triangles[3 * t + k] + a]);
 
+    /// <summary>Binary STL: 80-byte header, uint32 facet count, then per facet a normal, three corners
+    /// (float32 x, y, z each) and a uint16 attribute (3D Systems STL format; value from memory).</summary>
     private static byte[] Binary(TriangleMesh m)
     {
         using var ms = new MemoryStream();
