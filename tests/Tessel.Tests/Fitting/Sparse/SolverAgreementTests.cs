@@ -5,13 +5,14 @@ namespace Tessel.Tests.Fitting.Sparse;
 /// <summary>Every sparse solver against the dense Cholesky oracle (MathNet) on the same seeded systems.</summary>
 public class SolverAgreementTests
 {
-    public static TheoryData<string> Solvers => ["pcg", "skyline", "auto"];
+    public static TheoryData<string> Solvers => ["pcg", "skyline", "supernodal", "auto"];
 
     private static ISpdSolver Create(string name) => name switch
     {
         // Tight CG tolerance: the check is on the solution, |x - x*| <= cond(A) * residual.
         "pcg" => new ConjugateGradientSolver { RelativeTolerance = 1e-14, WarmStart = false },
         "skyline" => new SkylineCholeskySolver(),
+        "supernodal" => new SupernodalCholeskySolver(),
         _ => new AutoSolver { RelativeTolerance = 1e-14, MaxIterations = 2000 },
     };
 
