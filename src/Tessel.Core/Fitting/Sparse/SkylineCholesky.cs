@@ -65,8 +65,10 @@ public sealed class SkylineCholesky
             for (int j = first[i]; j < i; j++) flops += j - Math.Max(first[i], first[j]);
         }
         FactorFlops = flops;
-        if (rowOffset[n] > Array.MaxLength) throw new InvalidOperationException($"envelope of {rowOffset[n]} entries is too large for skyline Cholesky");
+        // An envelope too large for one array can still be analysed (its cost compared); only
+        // factorising it fails.
         slotOfEntry = new int[a.NonZeroCount];
+        if (rowOffset[n] > Array.MaxLength) return;
         for (int r = 0; r < n; r++)
             for (int k = a.RowStart[r]; k < a.RowStart[r + 1]; k++)
             {
@@ -96,6 +98,7 @@ public sealed class SkylineCholesky
     public bool TryFactorize(CsrMatrix a, out int failedRow, out double failedPivot)
     {
         if (a.NonZeroCount != slotOfEntry.Length || a.Rows != n) throw new ArgumentException("matrix pattern differs from the analysed one", nameof(a));
+        if (rowOffset[n] > Array.MaxLength) throw new InvalidOperationException($"envelope of {rowOffset[n]} entries is too large for skyline Cholesky");
         if (factor.Length != rowOffset[n]) { factor = new double[rowOffset[n]]; work = new double[n]; }
         else Array.Clear(factor);
         double[] av = a.Values;

@@ -17,14 +17,22 @@ public sealed class SupernodalCholeskySolver : ISpdSolver
     /// <summary>The cached analysis of the last pattern solved (null before the first solve).</summary>
     public SupernodalCholesky? Analysis => analysis;
 
+    /// <summary>The symbolic analysis for <paramref name="a"/>'s pattern: the cached one when the pattern
+    /// is the same, else a new one (which replaces the cache).</summary>
+    public SupernodalCholesky AnalysisFor(CsrMatrix a)
+    {
+        if (analysis is null || !analysis.Matches(a)) analysis = SupernodalCholesky.Analyze(a);
+        return analysis;
+    }
+
     /// <summary>Solves A x = b; the incoming x is ignored. Iterations counts solves with the factor (1 or 2).</summary>
     public SolveStats Solve(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x)
     {
         int n = a.Rows;
         if (a.Columns != n || b.Length != n || x.Length != n) throw new ArgumentException("A must be n x n, b and x of length n");
-        if (analysis is null || !analysis.Matches(a)) analysis = SupernodalCholesky.Analyze(a);
-        analysis.Factorize(a);
-        analysis.Solve(b, x);
+        var factor = AnalysisFor(a);
+        factor.Factorize(a);
+        factor.Solve(b, x);
         if (residual.Length != n) { residual = new double[n]; correction = new double[n]; }
 
         double bNorm = Norm(b);
@@ -32,7 +40,7 @@ public sealed class SupernodalCholeskySolver : ISpdSolver
         int solves = 1;
         if (relative > 1e-12)
         {
-            analysis.Solve(residual, correction);
+            factor.Solve(residual, correction);
             for (int i = 0; i < n; i++) x[i] += correction[i];
             relative = RelativeResidual(a, b, x, bNorm);
             solves++;
