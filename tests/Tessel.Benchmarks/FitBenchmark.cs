@@ -30,7 +30,7 @@ public static class FitBenchmark
     public static (Tessel.Core.Tessellation.GeneratedPattern, ITargetSurface) Saddle(int cells)
     {
         double size = 0.1 * cells;
-        var target = new HyperbolicParaboloidSurface(Footprint.Rectangle(size, size), c: Math.Max(2.5, 1.0 * size));
+        var target = new HyperbolicParaboloidSurface(Footprint.Rectangle(size, size), c: 2.5 * size);
         var p = new MiuraParameters(CellsX: cells, CellsY: cells, SectorAngleDeg: 60, FoldDepth: 0.03);
         return (MiuraGenerator.Generate(target, p), target);
     }

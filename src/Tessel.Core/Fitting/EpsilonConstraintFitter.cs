@@ -32,6 +32,7 @@ public static class EpsilonConstraintFitter
 internal sealed class FitRun
 {
     private const string Feasibility = "feasibility", Optimality = "epsilon-constraint", Projection = "projection";
+    private const double FeasibilityPull = 1e-3;
 
     private readonly GeneratedPattern _pattern;
     private readonly FitRows _rows;
@@ -196,8 +197,11 @@ internal sealed class FitRun
             double res, w;
             if (!_rows.IsConstraint(r))
             {
-                if (!optimality) { _weight[r] = 0; _residual[r] = 0; continue; }
-                res = _value[r]; w = 1;
+                // Phase 1 keeps a faint pull toward the surfaces: it gives the many directions the
+                // constraints leave free some curvature, so the steps stay well conditioned.
+                w = phase == Feasibility ? FeasibilityPull : optimality ? 1 : 0;
+                if (w == 0) { _weight[r] = 0; _residual[r] = 0; continue; }
+                res = w * _value[r];
             }
             else if (optimality)
             {
