@@ -33,6 +33,7 @@ internal sealed class FitRun
 {
     private const string Feasibility = "feasibility", Optimality = "epsilon-constraint", Projection = "projection";
     private const double FeasibilityPull = 1e-3;
+    private const double HandOver = 1e-6;
 
     private readonly GeneratedPattern _pattern;
     private readonly FitRows _rows;
@@ -71,7 +72,10 @@ internal sealed class FitRun
 
         // Phase 1: constraint violation only, from the start.
         double tolerance = _s.ConstraintTolerance;
-        Minimise(Feasibility, Math.Max(1, budget - projectionReserve), () => MaxViolation() <= tolerance, out _);
+        // Phase 1a with a faint pull to the surfaces (well conditioned, lands near the constraint set),
+        // phase 1b pure Gauss-Newton on the violation (lands on it).
+        Minimise(Feasibility, Math.Max(1, Math.Min(40, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
+        Minimise(Projection, Math.Max(1, Math.Min(20, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
 
         // Phase 2: epsilon-constraint problem by augmented Lagrangian rounds.
         Evaluate(_x);
@@ -88,7 +92,8 @@ internal sealed class FitRun
             double next = Objective(out _);
             bool small = Math.Abs(objective - next) <= _s.RelativeObjectiveTolerance * Math.Max(Math.Abs(next), 1e-300);
             objective = next; previousViolation = violation;
-            if (violation <= 1e3 * tolerance && (small || stalled))
+            // The final projection removes what is left below HandOver (Newton converges quadratically there).
+            if (violation <= HandOver && (small || stalled))
             {
                 optimal = true;
                 stop = small ? "relative objective decrease below tolerance" : "no further descent";
@@ -111,7 +116,7 @@ internal sealed class FitRun
 
     /// <summary>Levenberg-Marquardt on the phase's merit function until <paramref name="done"/> holds,
     /// the budget is spent or steps stop helping (<paramref name="stalled"/>).</summary>
-    private void Minimise(string phase, int maxSolves, Func<bool> done, out bool stalled, double initialDamping = 1e-4)
+    private void Minimise(string phase, int maxSolves, Func<bool> done, out bool stalled, double initialDamping = 1e-4, double stallDecrease = 1e-12)
     {
         stalled = false;
         double damping = phase == Optimality ? _damping : initialDamping;
@@ -162,7 +167,7 @@ internal sealed class FitRun
                 Record(phase, true);
                 if (phase == Optimality) _damping = damping;
                 if (done()) return;
-                if (decrease < 1e-12) { stalled = true; return; }
+                if (decrease < stallDecrease) { stalled = true; return; }
             }
             else
             {
