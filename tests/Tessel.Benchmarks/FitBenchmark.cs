@@ -13,11 +13,12 @@ public static class FitBenchmark
     {
         int[] sizes = args.Length > 0 ? args[0].Split(',').Select(int.Parse).ToArray() : [10, 20, 40, 80, 100];
         bool verbose = args.Contains("-v");
+        double mu = args.FirstOrDefault(a => a.StartsWith("mu=")) is string m ? double.Parse(m[3..], System.Globalization.CultureInfo.InvariantCulture) : new FitSettings().InitialPenalty;
         foreach (int n in sizes)
         {
             var (pattern, target) = Saddle(n);
             var sw = Stopwatch.StartNew();
-            var r = EpsilonConstraintFitter.Fit(pattern, target, new FitSettings { StartPerturbation = 0 });
+            var r = EpsilonConstraintFitter.Fit(pattern, target, new FitSettings { StartPerturbation = 0, InitialPenalty = mu });
             sw.Stop();
             if (verbose)
                 foreach (var h in r.History)
