@@ -1,0 +1,470 @@
+namespace Tessel.Core.Fitting.Sparse;
+
+/// <summary>Sparse Cholesky L L^T by the multifrontal method over supernodes (Duff &amp; Reid 1983; Liu,
+/// "The multifrontal method for sparse matrix solution", SIAM Review 34(1) 1992) after a nested
+/// dissection ordering. For grid-like Gauss-Newton systems it does far less work than the envelope
+/// method because nested dissection keeps the fill at O(n log n).</summary>
+/// <remarks>
+/// Symbolic part (<see cref="Analyze(CsrMatrix)"/>, once per pattern): ordering, elimination tree (Liu
+/// 1986), its postorder, column counts by row subtrees, fundamental supernodes and their row structures,
+/// and the peak size of the update-matrix stack. Numeric part (<see cref="TryFactorize"/>): for every
+/// supernode in postorder, assemble its frontal matrix from A and the children's update matrices
+/// (extend-add), factorise its columns densely, and push the Schur complement for its parent. All dense
+/// work is dot products of contiguous rows (row-major blocks), done in a fixed order: same input, same bits.
+/// </remarks>
+public sealed class SupernodalCholesky
+{
+    private readonly int n;
+    private readonly int[] patternRowStart;
+    private readonly int[] patternColumns;
+    private readonly int patternNonZeros;
+
+    /// <summary>n+1 offsets: lower-triangle entries of the permuted A by column (row &gt;= column).</summary>
+    private readonly int[] columnStart;
+    /// <summary>Permuted row of each lower-triangle entry.</summary>
+    private readonly int[] columnRow;
+    /// <summary>Index in A.Values of each lower-triangle entry.</summary>
+    private readonly int[] columnSource;
+    /// <summary>n: index in A.Values of each permuted diagonal entry (-1 when not stored).</summary>
+    private readonly int[] diagonalSource;
+
+    private readonly int supernodes;
+    /// <summary>Supernodes+1: first (permuted) column of each supernode; columns are contiguous.</summary>
+    private readonly int[] superFirst;
+    /// <summary>Supernodes+1 offsets into <see cref="superRows"/>.</summary>
+    private readonly int[] superRowStart;
+    /// <summary>Rows of each supernode's factor block, ascending: its own columns, then the rows below.</summary>
+    private readonly int[] superRows;
+    /// <summary>Supernodes+1 offsets of each row-major (rows x columns) factor block.</summary>
+    private readonly long[] factorStart;
+    /// <summary>Number of child supernodes (their update matrices are on top of the stack in order).</summary>
+    private readonly int[] childCount;
+    private readonly long stackPeak;
+    private readonly long updatePeak;
+
+    private double[] factor = [];
+    private double[] stack = [];
+    private double[] update = [];
+    private int[] localOf = [];
+    private double[] work = [];
+    private double[] columnWork = [];
+
+    /// <summary>n entries: NewToOld[k] is the original index of the k-th pivot.</summary>
+    public int[] NewToOld { get; }
+    /// <summary>Doubles held by the factor (dense supernode blocks, including their upper-triangle zeros).</summary>
+    public long FactorEntries => factorStart[supernodes];
+    /// <summary>Number of supernodes.</summary>
+    public int SupernodeCount => supernodes;
+    /// <summary>Multiply-adds of one numeric factorisation (exact count for this structure).</summary>
+    public double FactorFlops { get; }
+    /// <summary>A pivot d counts as failed when d &lt;= RelativePivotTolerance * A(i,i).</summary>
+    public double RelativePivotTolerance { get; set; } = 1e-14;
+
+    /// <summary>Symbolic step with a nested dissection ordering.</summary>
+    public static SupernodalCholesky Analyze(CsrMatrix a) => Analyze(a, NestedDissection.Order(a));
+
+    /// <summary>Symbolic step with a given fill-reducing ordering (newToOld, n entries). The ordering is
+    /// refined by a postorder of its elimination tree, which changes no fill.</summary>
+    public static SupernodalCholesky Analyze(CsrMatrix a, int[] newToOld)
+    {
+        if (a.Rows != a.Columns) throw new ArgumentException("matrix must be square", nameof(a));
+        if (newToOld.Length != a.Rows) throw new ArgumentException("ordering needs one entry per row", nameof(newToOld));
+        return new SupernodalCholesky(a, newToOld);
+    }
+
+    private SupernodalCholesky(CsrMatrix a, int[] ordering)
+    {
+        n = a.Rows;
+        patternRowStart = a.RowStart;
+        patternColumns = a.ColumnIndices;
+        patternNonZeros = a.NonZeroCount;
+
+        // Elimination tree of the given ordering, then its postorder: subtrees become contiguous, which
+        // the multifrontal stack and the supernode detection both need.
+        int[] firstOldToNew = SparsityMeasures.Invert(ordering);
+        var (rowStart0, rowCols0) = LowerRows(a, firstOldToNew);
+        int[] parent0 = EliminationTree(rowStart0, rowCols0);
+        int[] post = Postorder(parent0);
+        NewToOld = new int[n];
+        for (int t = 0; t < n; t++) NewToOld[t] = ordering[post[t]];
+        int[] oldToNew = SparsityMeasures.Invert(NewToOld);
+        int[] postInverse = SparsityMeasures.Invert(post);
+        var parent = new int[n];
+        for (int t = 0; t < n; t++) parent[t] = parent0[post[t]] < 0 ? -1 : postInverse[parent0[post[t]]];
+
+        var (rowStart, rowCols) = LowerRows(a, oldToNew);
+        (columnStart, columnRow, columnSource, diagonalSource) = LowerColumns(a, oldToNew);
+        int[] counts = ColumnCounts(rowStart, rowCols, parent);
+
+        // Fundamental supernodes: j+1 extends j's supernode when it is j's parent, its only child, and
+        // L(:, j) is L(:, j+1) plus the diagonal.
+        var children = new int[n];
+        for (int j = 0; j < n; j++) if (parent[j] >= 0) children[parent[j]]++;
+        var firsts = new List<int> { 0 };
+        for (int j = 0; j + 1 < n; j++)
+            if (!(parent[j] == j + 1 && counts[j] == counts[j + 1] + 1 && children[j + 1] == 1)) firsts.Add(j + 1);
+        supernodes = n == 0 ? 0 : firsts.Count;
+        superFirst = new int[supernodes + 1];
+        for (int s = 0; s < supernodes; s++) superFirst[s] = firsts[s];
+        superFirst[supernodes] = n;
+        var superOf = new int[n];
+        for (int s = 0; s < supernodes; s++)
+            for (int j = superFirst[s]; j < superFirst[s + 1]; j++) superOf[j] = s;
+
+        // Row structure of each supernode: its columns, the rows of A below them, and the children's
+        // rows below (Liu 1992, the structure of a column is its A column plus its children's).
+        childCount = new int[supernodes];
+        var childList = new List<int>[supernodes];
+        for (int s = 0; s < supernodes; s++) childList[s] = [];
+        for (int s = 0; s < supernodes; s++)
+        {
+            int p = parent[superFirst[s + 1] - 1];
+            if (p >= 0) { childList[superOf[p]].Add(s); childCount[superOf[p]]++; }
+        }
+        superRowStart = new int[supernodes + 1];
+        factorStart = new long[supernodes + 1];
+        var allRows = new List<int>();
+        var marker = new int[n];
+        Array.Fill(marker, -1);
+        var below = new List<int>();
+        double flops = 0;
+        long stackNow = 0, stackMax = 0, updateMax = 0;
+        var stackSizes = new Stack<long>();
+        for (int s = 0; s < supernodes; s++)
+        {
+            int f = superFirst[s], l = superFirst[s + 1] - 1, k = l - f + 1;
+            below.Clear();
+            for (int j = f; j <= l; j++)
+                for (int p = columnStart[j]; p < columnStart[j + 1]; p++)
+                {
+                    int i = columnRow[p];
+                    if (i > l && marker[i] != s) { marker[i] = s; below.Add(i); }
+                }
+            foreach (int c in childList[s])
+                for (int t = superRowStart[c] + (superFirst[c + 1] - superFirst[c]); t < superRowStart[c + 1]; t++)
+                {
+                    int i = allRows[t];
+                    if (i > l && marker[i] != s) { marker[i] = s; below.Add(i); }
+                }
+            below.Sort();
+            for (int j = f; j <= l; j++) allRows.Add(j);
+            allRows.AddRange(below);
+            superRowStart[s + 1] = allRows.Count;
+            int m = k + below.Count;
+            if (m != counts[f]) throw new InvalidOperationException($"supernode {s}: {m} rows but column count {counts[f]}");
+            factorStart[s + 1] = factorStart[s] + (long)m * k;
+
+            long mu = m - k;
+            for (int c = 0; c < childCount[s]; c++) stackNow -= stackSizes.Pop();
+            stackNow += mu * mu;
+            stackSizes.Push(mu * mu);
+            stackMax = Math.Max(stackMax, stackNow);
+            updateMax = Math.Max(updateMax, mu * mu);
+            // Bordering: row i < k takes dots of lengths 0..i; rows below take 0..k-1; the Schur
+            // complement takes one dot of length k per lower entry.
+            flops += (k - 1.0) * k * (k + 1.0) / 6 + mu * k * (k - 1.0) / 2 + mu * (mu + 1.0) / 2 * k;
+        }
+        superRows = allRows.ToArray();
+        stackPeak = stackMax;
+        updatePeak = updateMax;
+        FactorFlops = flops;
+        if (factorStart[supernodes] > Array.MaxLength || stackPeak > Array.MaxLength)
+            throw new InvalidOperationException($"factor of {factorStart[supernodes]} entries is too large");
+    }
+
+    /// <summary>True when <paramref name="a"/> shares this analysis' pattern arrays.</summary>
+    public bool Matches(CsrMatrix a) =>
+        ReferenceEquals(a.RowStart, patternRowStart) && ReferenceEquals(a.ColumnIndices, patternColumns);
+
+    /// <summary>Numeric step. Returns false when a pivot fails, with the original index of its row and
+    /// its value; the factor is then unusable until the next successful call.</summary>
+    public bool TryFactorize(CsrMatrix a, out int failedRow, out double failedPivot)
+    {
+        if (a.Rows != n || a.NonZeroCount != patternNonZeros) throw new ArgumentException("matrix pattern differs from the analysed one", nameof(a));
+        if (factor.Length != factorStart[supernodes])
+        {
+            factor = new double[factorStart[supernodes]];
+            stack = new double[stackPeak];
+            update = new double[updatePeak];
+            localOf = new int[n];
+            work = new double[n];
+            int widest = 0;
+            for (int s = 0; s < supernodes; s++) widest = Math.Max(widest, superFirst[s + 1] - superFirst[s]);
+            columnWork = new double[widest];
+        }
+        double[] values = a.Values, l = factor;
+        var stackOffset = new long[supernodes];
+        var stackOwner = new int[supernodes];
+        int stackDepth = 0;
+        long stackTop = 0;
+
+        for (int s = 0; s < supernodes; s++)
+        {
+            int f = superFirst[s], k = superFirst[s + 1] - f;
+            int r0 = superRowStart[s], m = superRowStart[s + 1] - r0, mu = m - k;
+            long block = factorStart[s];
+            for (int t = 0; t < m; t++) localOf[superRows[r0 + t]] = t;
+            Array.Clear(l, (int)block, m * k);
+            Array.Clear(update, 0, mu * mu);
+
+            // Assemble A's columns of this supernode.
+            for (int j = f; j < f + k; j++)
+                for (int p = columnStart[j]; p < columnStart[j + 1]; p++)
+                    l[block + (long)localOf[columnRow[p]] * k + (j - f)] += values[columnSource[p]];
+
+            // Extend-add the children's update matrices (the top childCount entries of the stack).
+            int firstChild = stackDepth - childCount[s];
+            for (int e = firstChild; e < stackDepth; e++)
+            {
+                int c = stackOwner[e];
+                int kc = superFirst[c + 1] - superFirst[c];
+                int rc = superRowStart[c] + kc, mc = superRowStart[c + 1] - rc;
+                long u = stackOffset[e];
+                for (int x = 0; x < mc; x++)
+                {
+                    int lx = localOf[superRows[rc + x]];
+                    long ux = u + (long)x * mc;
+                    if (lx < k)
+                    {
+                        for (int y = 0; y <= x; y++) l[block + (long)lx * k + localOf[superRows[rc + y]]] += stack[ux + y];
+                    }
+                    else
+                    {
+                        long rowL = block + (long)lx * k;
+                        int rowU = (lx - k) * mu;
+                        for (int y = 0; y <= x; y++)
+                        {
+                            int ly = localOf[superRows[rc + y]];
+                            if (ly < k) l[rowL + ly] += stack[ux + y];
+                            else update[rowU + ly - k] += stack[ux + y];
+                        }
+                    }
+                }
+            }
+            if (firstChild < stackDepth) stackTop = stackOffset[firstChild];
+            stackDepth = firstChild;
+
+            // Dense partial Cholesky of the front: the k pivot columns (bordering, row by row).
+            for (int i = 0; i < m; i++)
+            {
+                long rowI = block + (long)i * k;
+                int jEnd = Math.Min(i, k);
+                for (int j = 0; j < jEnd; j++)
+                {
+                    long rowJ = block + (long)j * k;
+                    l[rowI + j] = (l[rowI + j] - DenseKernels.Dot(l, rowI, l, rowJ, j)) / l[rowJ + j];
+                }
+                if (i < k)
+                {
+                    double original = diagonalSource[f + i] >= 0 ? Math.Abs(values[diagonalSource[f + i]]) : 0;
+                    double d = l[rowI + i] - DenseKernels.Dot(l, rowI, l, rowI, i);
+                    if (!(d > RelativePivotTolerance * original) || double.IsInfinity(d))
+                    {
+                        failedRow = NewToOld[f + i];
+                        failedPivot = d;
+                        return false;
+                    }
+                    l[rowI + i] = Math.Sqrt(d);
+                }
+            }
+            // Schur complement for the parent: U -= L21 L21^T (lower triangle).
+            for (int i = 0; i < mu; i++)
+            {
+                long rowI = block + (long)(k + i) * k;
+                int rowU = i * mu;
+                for (int j = 0; j <= i; j++)
+                    update[rowU + j] -= DenseKernels.Dot(l, rowI, l, block + (long)(k + j) * k, k);
+            }
+            if (mu > 0)
+            {
+                Array.Copy(update, 0, stack, stackTop, mu * mu);
+                stackOffset[stackDepth] = stackTop;
+                stackOwner[stackDepth] = s;
+                stackDepth++;
+                stackTop += (long)mu * mu;
+            }
+        }
+        failedRow = -1;
+        failedPivot = 0;
+        return true;
+    }
+
+    /// <summary>Numeric step; throws <see cref="NotPositiveDefiniteException"/> on a failed pivot.</summary>
+    public void Factorize(CsrMatrix a)
+    {
+        if (!TryFactorize(a, out int row, out double pivot)) throw new NotPositiveDefiniteException(row, pivot);
+    }
+
+    /// <summary>x = A^-1 b with the current factor (b, x: n entries, original numbering; may alias).</summary>
+    public void Solve(ReadOnlySpan<double> b, Span<double> x)
+    {
+        if (b.Length != n || x.Length != n) throw new ArgumentException("b and x need n entries");
+        double[] y = work, l = factor, t = columnWork;
+        for (int i = 0; i < n; i++) y[i] = b[NewToOld[i]];
+        // L y = P b, supernode by supernode; a supernode's columns are the contiguous run y[f..f+k).
+        for (int s = 0; s < supernodes; s++)
+        {
+            int f = superFirst[s], k = superFirst[s + 1] - f;
+            int r0 = superRowStart[s], m = superRowStart[s + 1] - r0;
+            long block = factorStart[s];
+            for (int i = 0; i < k; i++)
+            {
+                long rowI = block + (long)i * k;
+                y[f + i] = (y[f + i] - DenseKernels.Dot(l, rowI, y, f, i)) / l[rowI + i];
+            }
+            for (int i = k; i < m; i++)
+                y[superRows[r0 + i]] -= DenseKernels.Dot(l, block + (long)i * k, y, f, k);
+        }
+        // L^T z = y, supernodes in reverse.
+        for (int s = supernodes - 1; s >= 0; s--)
+        {
+            int f = superFirst[s], k = superFirst[s + 1] - f;
+            int r0 = superRowStart[s], m = superRowStart[s + 1] - r0;
+            long block = factorStart[s];
+            for (int j = 0; j < k; j++) t[j] = y[f + j];
+            for (int i = k; i < m; i++)
+            {
+                double zi = y[superRows[r0 + i]];
+                long rowI = block + (long)i * k;
+                for (int j = 0; j < k; j++) t[j] -= l[rowI + j] * zi;
+            }
+            for (int j = k - 1; j >= 0; j--)
+            {
+                long rowJ = block + (long)j * k;
+                double zj = t[j] / l[rowJ + j];
+                y[f + j] = zj;
+                for (int p = 0; p < j; p++) t[p] -= l[rowJ + p] * zj;
+            }
+        }
+        for (int i = 0; i < n; i++) x[NewToOld[i]] = y[i];
+    }
+
+    /// <summary>Strictly lower part of the permuted pattern by rows: row i lists columns k &lt; i.</summary>
+    private static (int[] Start, int[] Columns) LowerRows(CsrMatrix a, int[] oldToNew)
+    {
+        int n = a.Rows;
+        var start = new int[n + 1];
+        for (int r = 0; r < n; r++)
+            for (int k = a.RowStart[r]; k < a.RowStart[r + 1]; k++)
+            {
+                int i = oldToNew[r], j = oldToNew[a.ColumnIndices[k]];
+                if (j < i) start[i + 1]++;
+            }
+        for (int i = 0; i < n; i++) start[i + 1] += start[i];
+        var cols = new int[start[n]];
+        var fill = (int[])start.Clone();
+        for (int r = 0; r < n; r++)
+            for (int k = a.RowStart[r]; k < a.RowStart[r + 1]; k++)
+            {
+                int i = oldToNew[r], j = oldToNew[a.ColumnIndices[k]];
+                if (j < i) cols[fill[i]++] = j;
+            }
+        return (start, cols);
+    }
+
+    /// <summary>Lower triangle (diagonal included) of the permuted matrix by columns, with the index of
+    /// each entry in A.Values, and the diagonal's index.</summary>
+    private static (int[] Start, int[] Rows, int[] Source, int[] Diagonal) LowerColumns(CsrMatrix a, int[] oldToNew)
+    {
+        int n = a.Rows;
+        var start = new int[n + 1];
+        var diagonal = new int[n];
+        Array.Fill(diagonal, -1);
+        for (int r = 0; r < n; r++)
+            for (int k = a.RowStart[r]; k < a.RowStart[r + 1]; k++)
+            {
+                int i = oldToNew[r], j = oldToNew[a.ColumnIndices[k]];
+                if (i >= j) start[j + 1]++;
+            }
+        for (int j = 0; j < n; j++) start[j + 1] += start[j];
+        var rows = new int[start[n]];
+        var source = new int[start[n]];
+        var fill = (int[])start.Clone();
+        for (int r = 0; r < n; r++)
+            for (int k = a.RowStart[r]; k < a.RowStart[r + 1]; k++)
+            {
+                int i = oldToNew[r], j = oldToNew[a.ColumnIndices[k]];
+                if (i < j) continue;
+                rows[fill[j]] = i;
+                source[fill[j]++] = k;
+                if (i == j) diagonal[j] = k;
+            }
+        return (start, rows, source, diagonal);
+    }
+
+    /// <summary>Elimination tree (Liu 1986, with path compression): parent[j] = first row i &gt; j with
+    /// L(i, j) != 0, or -1 at a root.</summary>
+    private static int[] EliminationTree(int[] rowStart, int[] rowCols)
+    {
+        int n = rowStart.Length - 1;
+        var parent = new int[n];
+        var ancestor = new int[n];
+        Array.Fill(parent, -1);
+        Array.Fill(ancestor, -1);
+        for (int i = 0; i < n; i++)
+            for (int p = rowStart[i]; p < rowStart[i + 1]; p++)
+            {
+                int r = rowCols[p];
+                while (ancestor[r] != -1 && ancestor[r] != i)
+                {
+                    int next = ancestor[r];
+                    ancestor[r] = i;
+                    r = next;
+                }
+                if (ancestor[r] == -1) { ancestor[r] = i; parent[r] = i; }
+            }
+        return parent;
+    }
+
+    /// <summary>Depth-first postorder of a forest (children in ascending order, roots ascending):
+    /// post[t] is the node visited t-th.</summary>
+    private static int[] Postorder(int[] parent)
+    {
+        int n = parent.Length;
+        var head = new int[n];
+        var next = new int[n];
+        Array.Fill(head, -1);
+        // Insert in descending order so each child list ends up ascending.
+        for (int j = n - 1; j >= 0; j--)
+            if (parent[j] >= 0) { next[j] = head[parent[j]]; head[parent[j]] = j; }
+        var post = new int[n];
+        var stack = new int[n];
+        int placed = 0;
+        for (int root = 0; root < n; root++)
+        {
+            if (parent[root] >= 0) continue;
+            int depth = 0;
+            stack[depth++] = root;
+            while (depth > 0)
+            {
+                int v = stack[depth - 1];
+                int child = head[v];
+                if (child < 0) { post[placed++] = v; depth--; }
+                else { head[v] = next[child]; stack[depth++] = child; }
+            }
+        }
+        return post;
+    }
+
+    /// <summary>Nonzeros in each column of L, diagonal included, from the row subtrees: row i of L covers
+    /// the tree paths from each k in row i of A up to i (Liu 1990).</summary>
+    private static int[] ColumnCounts(int[] rowStart, int[] rowCols, int[] parent)
+    {
+        int n = parent.Length;
+        var count = new int[n];
+        var mark = new int[n];
+        Array.Fill(count, 1);
+        Array.Fill(mark, -1);
+        for (int i = 0; i < n; i++)
+        {
+            mark[i] = i;
+            for (int p = rowStart[i]; p < rowStart[i + 1]; p++)
+                for (int j = rowCols[p]; mark[j] != i; j = parent[j])
+                {
+                    count[j]++;
+                    mark[j] = i;
+                }
+        }
+        return count;
+    }
+}
