@@ -2,14 +2,18 @@ using Tessel.Benchmarks;
 
 // Usage: dotnet run -c Release --project tests/Tessel.Benchmarks -- <verb> [options]
 // Verbs: solvers [--max-grid N]   sparse SPD solvers on Gauss-Newton edge-length systems
+//        fit [sizes] [-v]         Miura-to-saddle fit times and peak memory (see FitBenchmark.cs)
 var verb = args.Length > 0 ? args[0] : "";
 switch (verb)
 {
     case "solvers":
         SolverBenchmark.Run(args[1..]);
         break;
+    case "fit":
+        FitBenchmark.Run(args[1..]);
+        break;
     default:
-        Console.Error.WriteLine("usage: Tessel.Benchmarks <verb>   verbs: solvers [--max-grid N]");
+        Console.Error.WriteLine("usage: Tessel.Benchmarks <verb>   verbs: solvers [--max-grid N], fit [10,20,40] [-v]");
         Environment.ExitCode = 2;
         break;
 }

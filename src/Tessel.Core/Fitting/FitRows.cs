@@ -1,0 +1,170 @@
+using Tessel.Core.Fitting.Residuals;
+using Tessel.Core.Geometry;
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation;
+
+namespace Tessel.Core.Fitting;
+
+/// <summary>The rows of the fitting problem for one topology (precomputed once): which vertices each
+/// row touches, its kind and its bounds; <see cref="Evaluate"/> fills values and analytic gradients.</summary>
+/// <remarks>Every constraint row is scaled to be dimensionless (radians, scaled planarity, edge length
+/// over the mean edge length h); objective rows are distances over h, so one penalty scale fits all.</remarks>
+internal sealed class FitRows
+{
+    public int RowCount => Kind.Length;
+    /// <summary>#R kind of each row.</summary>
+    public ResidualKind[] Kind { get; }
+    /// <summary>#R+1 offsets into <see cref="Vertices"/>.</summary>
+    public int[] Start { get; }
+    /// <summary>Vertices touched by each row, in gradient order.</summary>
+    public int[] Vertices { get; }
+    /// <summary>#R lower / upper bound of constraint rows (equality: both 0); objective rows unused.</summary>
+    public double[] Lo { get; }
+    public double[] Hi { get; }
+    /// <summary>Index of the first constraint row; rows before it are objective rows.</summary>
+    public int FirstConstraint { get; }
+    /// <summary>Mean edge length of the draped mesh (metres): the length scale.</summary>
+    public double Scale { get; }
+
+    private readonly ITargetSurface _target;
+    private readonly double _foldDepth;
+    private readonly double _fairnessRoot;
+    private readonly VertexStar[] _stars;
+    private readonly int[] _aux;
+
+    public FitRows(GeneratedPattern pattern, ITargetSurface target, double foldDepth, FitSettings s)
+    {
+        var mesh = pattern.Mesh;
+        _target = target;
+        _foldDepth = foldDepth;
+        _fairnessRoot = Math.Sqrt(s.FairnessWeight);
+        var pos = mesh.Positions;
+        double sum = 0;
+        for (int e = 0; e < mesh.EdgeCount; e++) sum += (mesh.Vertex(mesh.EdgeVertices[2 * e + 1]) - mesh.Vertex(mesh.EdgeVertices[2 * e])).Length;
+        Scale = sum / mesh.EdgeCount;
+
+        var kind = new List<ResidualKind>(); var start = new List<int> { 0 }; var verts = new List<int>();
+        var lo = new List<double>(); var hi = new List<double>(); var aux = new List<int>();
+        void Add(ResidualKind k, double l, double h, int a, params int[] vs)
+        {
+            kind.Add(k); verts.AddRange(vs); start.Add(verts.Count); lo.Add(l); hi.Add(h); aux.Add(a);
+        }
+
+        for (int v = 0; v < mesh.VertexCount; v++)
+        {
+            if (mesh.Layers[v] == VertexLayer.Top) Add(ResidualKind.TopDistance, 0, 0, 0, v);
+            else if (mesh.Layers[v] == VertexLayer.Bottom) Add(ResidualKind.BottomDistance, 0, 0, 0, v);
+        }
+        var st = pattern.FairnessStencils;
+        for (int k = 0; k < st.Length / 3; k++)
+            for (int c = 0; c < 3; c++) Add(ResidualKind.Fairness, 0, 0, c, st[3 * k], st[3 * k + 1], st[3 * k + 2]);
+        FirstConstraint = kind.Count;
+
+        var cons = pattern.Constraints;
+        if (cons.HasFlag(FamilyConstraints.QuadPlanarity))
+            for (int f = 0; f < mesh.FaceCount; f++)
+                if (mesh.Faces[f].Length == 4) Add(ResidualKind.Planarity, 0, 0, f, mesh.Faces[f]);
+        _stars = VertexStar.InteriorStars(mesh);
+        double eps = s.EpsilonDeg * Math.PI / 180;
+        for (int i = 0; i < _stars.Length; i++)
+        {
+            int[] vs = [_stars[i].Center, .. _stars[i].Ring];
+            if (cons.HasFlag(FamilyConstraints.Kawasaki) && _stars[i].Degree % 2 == 0) Add(ResidualKind.Kawasaki, 0, 0, i, vs);
+            if (cons.HasFlag(FamilyConstraints.Developability)) Add(ResidualKind.Developability, -eps, eps, i, vs);
+        }
+        double deg = Math.PI / 180;
+        foreach (var f in mesh.Faces)
+            for (int k = 0; k < f.Length; k++)
+                Add(ResidualKind.SectorAngleBound, s.MinSectorAngleDeg * deg, s.MaxSectorAngleDeg * deg, 0,
+                    f[k], f[(k + 1) % f.Length], f[(k + f.Length - 1) % f.Length]);
+        for (int e = 0; e < mesh.EdgeCount; e++)
+        {
+            int a = mesh.EdgeVertices[2 * e], b = mesh.EdgeVertices[2 * e + 1];
+            double len = (mesh.Vertex(b) - mesh.Vertex(a)).Length;
+            Add(ResidualKind.EdgeLengthBound, s.MinEdgeLengthFraction * len / Scale, double.PositiveInfinity, e, a, b);
+        }
+        if (cons.HasFlag(FamilyConstraints.FoldSigns))
+            for (int e = 0; e < mesh.EdgeCount; e++)
+            {
+                var role = mesh.EdgeRoles[e];
+                if (!mesh.IsInterior(e) || (role != CreaseRole.Mountain && role != CreaseRole.Valley)) continue;
+                int a = mesh.EdgeVertices[2 * e], b = mesh.EdgeVertices[2 * e + 1];
+                int l = NextAfter(mesh.Faces[mesh.EdgeFaceLeft[e]], b), r = NextAfter(mesh.Faces[mesh.EdgeFaceRight[e]], a);
+                double min = s.MinFoldAngleDeg * deg, max = s.MaxFoldAngleDeg * deg;
+                if (role == CreaseRole.Mountain) Add(ResidualKind.FoldAngleBound, min, max, e, a, b, l, r);
+                else Add(ResidualKind.FoldAngleBound, -max, -min, e, a, b, l, r);
+            }
+
+        Kind = kind.ToArray(); Start = start.ToArray(); Vertices = verts.ToArray();
+        Lo = lo.ToArray(); Hi = hi.ToArray(); _aux = aux.ToArray();
+    }
+
+    private static int NextAfter(int[] face, int v)
+    {
+        int k = Array.IndexOf(face, v);
+        return face[(k + 1) % face.Length];
+    }
+
+    public bool IsConstraint(int row) => row >= FirstConstraint;
+
+    /// <summary>Fills <paramref name="value"/> (#R) and <paramref name="grad"/> (3 per row vertex,
+    /// aligned with <see cref="Vertices"/>). Objective rows give their residual (already weighted);
+    /// constraint rows give the constrained quantity g, to be held in [Lo, Hi].</summary>
+    public void Evaluate(double[] xyz, double[] value, double[] grad)
+    {
+        Span<double> g = stackalloc double[3 * 16];
+        double invH = 1 / Scale;
+        for (int r = 0; r < Kind.Length; r++)
+        {
+            int s0 = Start[r], nv = Start[r + 1] - s0;
+            var gr = grad.AsSpan(3 * s0, 3 * nv);
+            var vs = Vertices.AsSpan(s0, nv);
+            switch (Kind[r])
+            {
+                case ResidualKind.TopDistance:
+                case ResidualKind.BottomDistance:
+                {
+                    var sp = _target.ClosestPoint(Vec3.Read(xyz, vs[0]));
+                    double d = sp.SignedDistance + (Kind[r] == ResidualKind.BottomDistance ? _foldDepth : 0);
+                    value[r] = d * invH;
+                    (sp.Normal * invH).Write(gr, 0);
+                    break;
+                }
+                case ResidualKind.Fairness:
+                {
+                    var xc = Vec3.Read(xyz, vs[1]);
+                    var n = _target.NormalAt(xc.X, xc.Y);
+                    var lap = Vec3.Read(xyz, vs[0]) - 2 * xc + Vec3.Read(xyz, vs[2]);
+                    var t = lap - Vec3.Dot(lap, n) * n;
+                    int c = _aux[r];
+                    double w = _fairnessRoot * invH;
+                    value[r] = w * (c == 0 ? t.X : c == 1 ? t.Y : t.Z);
+                    // Row c of the tangential projector I - n n^T.
+                    var unit = c == 0 ? new Vec3(1, 0, 0) : c == 1 ? new Vec3(0, 1, 0) : Vec3.UnitZ;
+                    var prow = unit - (c == 0 ? n.X : c == 1 ? n.Y : n.Z) * n;
+                    (w * prow).Write(gr, 0); (-2 * w * prow).Write(gr, 1); (w * prow).Write(gr, 2);
+                    break;
+                }
+                case ResidualKind.Planarity:
+                    value[r] = QuadPlanarity.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
+                    break;
+                case ResidualKind.Kawasaki:
+                    value[r] = SectorAngleSums.Kawasaki(xyz, _stars[_aux[r]], gr);
+                    break;
+                case ResidualKind.Developability:
+                    value[r] = SectorAngleSums.Developability(xyz, _stars[_aux[r]], gr);
+                    break;
+                case ResidualKind.SectorAngleBound:
+                    value[r] = CornerAngle.Evaluate(xyz, vs[0], vs[1], vs[2], gr);
+                    break;
+                case ResidualKind.EdgeLengthBound:
+                    value[r] = EdgeLength.Evaluate(xyz, vs[0], vs[1], gr) * invH;
+                    for (int k = 0; k < 6; k++) gr[k] *= invH;
+                    break;
+                case ResidualKind.FoldAngleBound:
+                    value[r] = FoldAngle.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
+                    break;
+            }
+        }
+    }
+}

@@ -1,0 +1,36 @@
+namespace Tessel.Core.Fitting;
+
+/// <summary>Settings of the epsilon-constraint fit. Angles in degrees; defaults suit architectural
+/// Miura sheets of tens to tens of thousands of cells.</summary>
+public sealed record FitSettings
+{
+    /// <summary>Allowed |sum of sector angles - 2 pi| at interior vertices, degrees (0 = developable).</summary>
+    public double EpsilonDeg { get; init; }
+    /// <summary>Weight of the fairness term relative to the squared normalised distances.</summary>
+    public double FairnessWeight { get; init; } = 1e-4;
+    public double MinSectorAngleDeg { get; init; } = 5;
+    public double MaxSectorAngleDeg { get; init; } = 175;
+    /// <summary>Fold angles stay at least this far from flat (0 deg), degrees.</summary>
+    public double MinFoldAngleDeg { get; init; } = 1;
+    /// <summary>Fold angles stay at most this (180 deg = folded shut), degrees.</summary>
+    public double MaxFoldAngleDeg { get; init; } = 175;
+    /// <summary>Every edge stays at least this fraction of its draped length.</summary>
+    public double MinEdgeLengthFraction { get; init; } = 0.25;
+    /// <summary>Largest allowed constraint residual at the end (radians, or scaled planarity): the
+    /// converged flag needs every constraint within it.</summary>
+    public double ConstraintTolerance { get; init; } = 1e-10;
+    /// <summary>Phase 2 stops when one augmented-Lagrangian round lowers the objective by less than
+    /// this fraction (stops the slow creep along in-plane motions).</summary>
+    public double RelativeObjectiveTolerance { get; init; } = 1e-3;
+    /// <summary>Cap on linear solves (Levenberg-Marquardt steps) over all phases.</summary>
+    public int MaxIterations { get; init; } = 300;
+    /// <summary>Number of starts (multi-start); each start perturbs interior vertices along the normal.</summary>
+    public int Starts { get; init; } = 1;
+    /// <summary>Job seed; start k uses a generator seeded from (Seed, k).</summary>
+    public int Seed { get; init; }
+    /// <summary>Standard deviation of the start perturbation along the target normal, as a fraction of
+    /// the mean edge length (0 = start from the plain drape).</summary>
+    public double StartPerturbation { get; init; } = 0.02;
+    /// <summary>Initial augmented-Lagrangian penalty (dimensionless: constraints are in radians).</summary>
+    public double InitialPenalty { get; init; } = 1e3;
+}
