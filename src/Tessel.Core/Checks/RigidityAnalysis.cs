@@ -58,33 +58,8 @@ public static class RigidityAnalysis
                      ?? EnvelopeCholesky.Factor(j, 1e-8 * lambdaMax, null)
                      ?? throw new InvalidOperationException("normal matrix could not be factored");
         double threshold = tolerance * tolerance * lambdaMax;
-        int p = Math.Min(j.Columns, 16);
-        var start = RandomBlock(j.Columns, p, 0);
-        while (true)
-        {
-            var ritz = ShiftInvertSubspace.Iterate(j, factor, start, null, threshold, 1e-3 * threshold, 60);
-            int below = ritz.Values.Count(v => v <= threshold);
-            if (below < p - 2 || p == j.Columns)
-            {
-                var values = ritz.Values.Select(v => Math.Sqrt(Math.Max(v, 0))).ToArray();
-                return (new SingularValues(Math.Sqrt(lambdaMax), values, 0), "shift-invert-subspace");
-            }
-            // The block is all (near) null space: double it, keeping what converged.
-            int grown = Math.Min(j.Columns, 2 * p);
-            start = ritz.Vectors.Concat(RandomBlock(j.Columns, grown - p, p)).ToArray();
-            p = grown;
-        }
-    }
-
-    private static double[][] RandomBlock(int n, int count, int seed)
-    {
-        var block = new double[count][];
-        for (int k = 0; k < count; k++)
-        {
-            var rng = new Random(1000 + seed + k);
-            block[k] = new double[n];
-            for (int c = 0; c < n; c++) block[k][c] = rng.NextDouble() - 0.5;
-        }
-        return block;
+        var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, null, threshold, 16);
+        var values = ritz.Values.Select(v => Math.Sqrt(Math.Max(v, 0))).ToArray();
+        return (new SingularValues(Math.Sqrt(lambdaMax), values, 0), "shift-invert-subspace");
     }
 }

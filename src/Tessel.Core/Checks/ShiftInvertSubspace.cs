@@ -54,6 +54,42 @@ internal static class ShiftInvertSubspace
         return result!;
     }
 
+    /// <summary>Like <see cref="Iterate"/>, doubling the block while fewer than two of its Ritz values lie above
+    /// <paramref name="threshold"/>, so the whole numerical null space and the first value above it are found.</summary>
+    /// <param name="warmStart">Vectors to start from (e.g. the previous null space), topped up with
+    /// deterministic pseudo-random ones to <paramref name="initialBlock"/>.</param>
+    public static RitzPairs SmallestWithGrowth(CsrMatrix j, EnvelopeCholesky factor, bool[]? fixedColumns,
+        double threshold, int initialBlock, IReadOnlyList<double[]>? warmStart = null, int maxSweeps = 60)
+    {
+        int n = j.Columns;
+        int free = fixedColumns == null ? n : fixedColumns.Count(f => !f);
+        int p = Math.Min(free, Math.Max(initialBlock, (warmStart?.Count ?? 0) + 2));
+        var start = (warmStart ?? []).Take(p).Select(v => (double[])v.Clone()).ToList();
+        start.AddRange(RandomBlock(n, p - start.Count, start.Count, fixedColumns));
+        while (true)
+        {
+            var ritz = Iterate(j, factor, start.ToArray(), fixedColumns, threshold, 1e-3 * threshold, maxSweeps);
+            int below = ritz.Values.Count(v => v <= threshold);
+            if (below < p - 1 || p >= free) return ritz;
+            int grown = Math.Min(free, 2 * p);
+            start = ritz.Vectors.Concat(RandomBlock(n, grown - p, p, fixedColumns)).ToList();
+            p = grown;
+        }
+    }
+
+    /// <summary>count deterministic pseudo-random vectors of length n, zero on fixed columns.</summary>
+    public static double[][] RandomBlock(int n, int count, int seed, bool[]? fixedColumns)
+    {
+        var block = new double[count][];
+        for (int k = 0; k < count; k++)
+        {
+            var rng = new Random(1000 + seed + k);
+            block[k] = new double[n];
+            for (int c = 0; c < n; c++) block[k][c] = fixedColumns != null && fixedColumns[c] ? 0 : rng.NextDouble() - 0.5;
+        }
+        return block;
+    }
+
     /// <summary>Modified Gram-Schmidt, twice for orthogonality to working precision; a vector that vanishes
     /// is replaced by a deterministic pseudo-random one.</summary>
     public static void Orthonormalise(double[][] v)
