@@ -30,26 +30,16 @@ internal sealed class EnvelopeCholesky
     /// <param name="j">m x n Jacobian.</param>
     /// <param name="shift">Added to every free diagonal entry; must make the matrix definite.</param>
     /// <param name="fixedColumns">n flags, or null when every column is free.</param>
-    public static EnvelopeCholesky? Factor(CsrMatrix j, double shift, bool[]? fixedColumns)
+    /// <param name="samePattern">An earlier factor of a matrix with the same sparsity pattern and fixed columns,
+    /// whose ordering and envelope are reused (skips the reordering).</param>
+    public static EnvelopeCholesky? Factor(CsrMatrix j, double shift, bool[]? fixedColumns, EnvelopeCholesky? samePattern = null)
     {
         int n = j.Columns;
         bool IsFixed(int c) => fixedColumns != null && fixedColumns[c];
-        var newOfOld = ReverseCuthillMcKee(j, fixedColumns);
-        var first = new int[n];
-        for (int i = 0; i < n; i++) first[i] = i;
-        for (int r = 0; r < j.Rows; r++)
-        {
-            int lo = int.MaxValue;
-            for (int k = j.RowStart[r]; k < j.RowStart[r + 1]; k++)
-                if (!IsFixed(j.ColumnIndices[k])) lo = Math.Min(lo, newOfOld[j.ColumnIndices[k]]);
-            for (int k = j.RowStart[r]; k < j.RowStart[r + 1]; k++)
-            {
-                int c = j.ColumnIndices[k];
-                if (!IsFixed(c)) first[newOfOld[c]] = Math.Min(first[newOfOld[c]], lo);
-            }
-        }
-        var start = new long[n + 1];
-        for (int i = 0; i < n; i++) start[i + 1] = start[i] + (i - first[i] + 1);
+        if (samePattern != null && samePattern._n != n) throw new ArgumentException("pattern of another size", nameof(samePattern));
+        var (newOfOld, first, start) = samePattern != null
+            ? (samePattern._newOfOld, samePattern._first, samePattern._start)
+            : Envelope(j, fixedColumns);
         var values = new double[start[n]];
         for (int r = 0; r < j.Rows; r++)
             for (int p = j.RowStart[r]; p < j.RowStart[r + 1]; p++)
@@ -73,6 +63,29 @@ internal sealed class EnvelopeCholesky
         }
         var factor = new EnvelopeCholesky(n, newOfOld, first, start, values);
         return factor.FactorInPlace() ? factor : null;
+    }
+
+    private static (int[] NewOfOld, int[] First, long[] Start) Envelope(CsrMatrix j, bool[]? fixedColumns)
+    {
+        int n = j.Columns;
+        bool IsFixed(int c) => fixedColumns != null && fixedColumns[c];
+        var newOfOld = ReverseCuthillMcKee(j, fixedColumns);
+        var first = new int[n];
+        for (int i = 0; i < n; i++) first[i] = i;
+        for (int r = 0; r < j.Rows; r++)
+        {
+            int lo = int.MaxValue;
+            for (int k = j.RowStart[r]; k < j.RowStart[r + 1]; k++)
+                if (!IsFixed(j.ColumnIndices[k])) lo = Math.Min(lo, newOfOld[j.ColumnIndices[k]]);
+            for (int k = j.RowStart[r]; k < j.RowStart[r + 1]; k++)
+            {
+                int c = j.ColumnIndices[k];
+                if (!IsFixed(c)) first[newOfOld[c]] = Math.Min(first[newOfOld[c]], lo);
+            }
+        }
+        var start = new long[n + 1];
+        for (int i = 0; i < n; i++) start[i + 1] = start[i] + (i - first[i] + 1);
+        return (newOfOld, first, start);
     }
 
     private bool FactorInPlace()

@@ -63,7 +63,9 @@ public static class RigidFoldingPath
             var x0 = (double[])_mesh.Positions.Clone();
             var j0 = _model.Jacobian(x0);
             double lambdaMax = ShiftInvertSubspace.LargestEigenvalue(j0);
-            _shift = 1e-10 * lambdaMax;
+            // Small: near the flat branch point the folding stiffness of J^T J drops toward this damping and Newton
+            // slows to a linear rate shift / (lambda + shift); a failed (indefinite) factor retries 100x larger.
+            _shift = 1e-13 * lambdaMax;
             _threshold = _settings.RankTolerance * _settings.RankTolerance * lambdaMax;
             // Project the given state onto the constraint set; what remains (inconsistent input) sets the floor.
             _acceptResidual = double.PositiveInfinity;
@@ -188,9 +190,17 @@ public static class RigidFoldingPath
 
         private static double Dot(Vec3 g, double[] v, int vertex) => g.X * v[3 * vertex] + g.Y * v[3 * vertex + 1] + g.Z * v[3 * vertex + 2];
 
-        private EnvelopeCholesky Factor(CsrMatrix j) =>
-            EnvelopeCholesky.Factor(j, _shift, _fixed) ?? EnvelopeCholesky.Factor(j, 1e3 * _shift, _fixed)
-            ?? throw new InvalidOperationException("constraint normal matrix could not be factored");
+        private EnvelopeCholesky? _pattern;
+
+        // The Jacobian's pattern never changes along the path: order and size the envelope once.
+        private EnvelopeCholesky Factor(CsrMatrix j)
+        {
+            var f = EnvelopeCholesky.Factor(j, _shift, _fixed, _pattern) ?? EnvelopeCholesky.Factor(j, 1e2 * _shift, _fixed, _pattern)
+                    ?? EnvelopeCholesky.Factor(j, 1e4 * _shift, _fixed, _pattern)
+                    ?? throw new InvalidOperationException("constraint normal matrix could not be factored");
+            _pattern ??= f;
+            return f;
+        }
 
         private double[] Residuals(double[] x)
         {
@@ -200,6 +210,8 @@ public static class RigidFoldingPath
         }
 
         /// <summary>Newton-corrects x in place onto the constraints with progress pinned to <paramref name="target"/>.</summary>
+        /// <remarks>Each iteration refactors at the current point: a chord step with the predictor's factor was
+        /// tried and diverges, because that factor is nearly singular along the old tangent.</remarks>
         private bool Correct(double[] x, double target, out int iterations)
         {
             int n = x.Length;
@@ -208,7 +220,7 @@ public static class RigidFoldingPath
             {
                 var r = Residuals(x);
                 double s = Progress(x);
-                double worst = MaxAbs(r);
+                double worst = MaxAbs(r); if (Environment.GetEnvironmentVariable("KIN_DEBUG") == "1") Console.WriteLine($"    it {iterations} worst {worst:E2} ds {s - target:E2}");
                 if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= 1e-12) return true;
                 if (iterations >= _settings.MaxCorrectorIterations) return worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9;
                 // Stagnation at a least-squares point of inconsistent constraints (non-planar input).
