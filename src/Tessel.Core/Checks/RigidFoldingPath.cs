@@ -220,7 +220,7 @@ public static class RigidFoldingPath
             {
                 var r = Residuals(x);
                 double s = Progress(x);
-                double worst = MaxAbs(r); if (Environment.GetEnvironmentVariable("KIN_DEBUG") == "1") Console.WriteLine($"    it {iterations} worst {worst:E2} ds {s - target:E2}");
+                double worst = MaxAbs(r);
                 if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= 1e-12) return true;
                 if (iterations >= _settings.MaxCorrectorIterations) return worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9;
                 // Stagnation at a least-squares point of inconsistent constraints (non-planar input).
