@@ -1,0 +1,282 @@
+using System.Diagnostics;
+using MathNet.Numerics.LinearAlgebra.Double;
+using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.Geometry;
+using Tessel.Core.Tessellation;
+
+namespace Tessel.Core.Checks;
+
+/// <summary>Rigid folding simulation: follows the bar-and-hinge constraint set (bar lengths, panel planarity)
+/// from the given folded state toward flat and further toward folded, by predictor-corrector continuation
+/// (Tachi, "Simulation of rigid origami", Origami 4, 2009; Allgower &amp; Georg, Numerical Continuation
+/// Methods, SIAM 2003).</summary>
+/// <remarks>
+/// The reference panel nearest the centroid keeps three corners fixed, which removes the six rigid motions.
+/// Predictor: a direction in the null space of the constraint Jacobian; with more than one degree of freedom
+/// the one whose fold-angle rates best match a uniform scaling of all fold angles (least squares).
+/// Corrector: minimum-norm Newton steps dx = (J^T J + eps I)^-1 J^T r (= J^T (J J^T + eps I)^-1 r) on the
+/// constraints plus one row pinning the progress, solved by a sparse envelope Cholesky factor with a
+/// Sherman-Morrison update for the dense progress row. The flat state is a branch point, so the flat-ward run
+/// stops just short of it.
+/// </remarks>
+public static class RigidFoldingPath
+{
+    public static FoldingPathResult Simulate(CreaseMesh mesh, FoldingSettings? settings = null) =>
+        new Tracer(mesh, settings ?? new FoldingSettings()).Run();
+
+    private sealed class Tracer
+    {
+        private readonly CreaseMesh _mesh;
+        private readonly FoldingSettings _settings;
+        private readonly BarHingeModel _model;
+        private readonly CreaseDihedrals _dihedrals;
+        private readonly double[] _rho0;
+        private readonly double _rho0Squared;
+        private readonly bool[] _fixed;
+        private readonly double _unit;
+        private double _shift, _threshold;
+        private List<double[]> _nullBasis = [];
+        private double _acceptResidual;
+        private int _newton, _steps, _dof = -1;
+        private double _maxStrain, _maxPlanarity;
+        private readonly List<FoldingKeyframe> _keyframes = [];
+
+        public Tracer(CreaseMesh mesh, FoldingSettings settings)
+        {
+            _mesh = mesh; _settings = settings;
+            _model = BarHingeModel.FromMesh(mesh);
+            _dihedrals = new CreaseDihedrals(mesh);
+            _rho0 = _dihedrals.Angles(mesh.Positions);
+            _rho0Squared = _rho0.Sum(r => r * r);
+            _unit = _model.LengthUnit;
+            _fixed = new bool[3 * mesh.VertexCount];
+            var reference = mesh.Faces[ReferenceFace(mesh)];
+            for (int k = 0; k < 3; k++)
+                for (int c = 0; c < 3; c++) _fixed[3 * reference[k] + c] = true;
+        }
+
+        public FoldingPathResult Run()
+        {
+            var clock = Stopwatch.StartNew();
+            if (_rho0.Length == 0 || Math.Sqrt(_rho0Squared / _rho0.Length) < 1e-9)
+                throw new ArgumentException("the mesh must be folded (some non-zero fold angle) to define the path");
+            var x0 = (double[])_mesh.Positions.Clone();
+            var j0 = _model.Jacobian(x0);
+            double lambdaMax = ShiftInvertSubspace.LargestEigenvalue(j0);
+            // Small: near the flat branch point the folding stiffness of J^T J drops toward this damping and Newton
+            // slows to a linear rate shift / (lambda + shift); a failed (indefinite) factor retries 100x larger.
+            _shift = 1e-13 * lambdaMax;
+            _threshold = _settings.RankTolerance * _settings.RankTolerance * lambdaMax;
+            // Project the given state onto the constraint set; what remains (inconsistent input) sets the floor.
+            _acceptResidual = double.PositiveInfinity;
+            Correct(x0, 1.0, out _);
+            _acceptResidual = Math.Max(_settings.ConstraintTolerance, 2 * MaxAbs(Residuals(x0)));
+            Accept(x0);
+            var keys = _settings.EffectiveKeyframes.Where(k => k > 0).Distinct().OrderBy(k => k).ToArray();
+            if (keys.Any(k => Math.Abs(k - 1) < 1e-12)) Keep(1.0, x0);
+
+            var (flatEnd, flatStop, reached) = Trace(x0, -1, keys);
+            var (foldEnd, foldStop, _) = Trace(x0, +1, keys);
+            var frames = _keyframes.OrderBy(k => k.Progress).ToList();
+            return new FoldingPathResult(_dof, reached, flatEnd, foldEnd, _maxStrain, _maxPlanarity, _steps, _newton,
+                flatStop, foldStop, frames, clock.Elapsed);
+        }
+
+        private (double End, string Stop, bool NearFlat) Trace(double[] start, int direction, double[] keys)
+        {
+            var x = (double[])start.Clone();
+            double s = 1.0, h = _settings.StepProgress, nearFlat = _settings.NearFlatFoldAngleDegrees * Math.PI / 180;
+            while (true)
+            {
+                double maxRho = MaxAbs(_dihedrals.Angles(x));
+                if (direction < 0 && maxRho < nearFlat)
+                {
+                    if (!_keyframes.Any(k => k.Progress == s)) Keep(s, x);
+                    return (s, "near flat", true);
+                }
+                if (direction > 0 && s >= _settings.MaxProgress - 1e-12) return (s, "max progress", false);
+                if (direction > 0 && maxRho > _settings.MaxFoldAngleDegrees * Math.PI / 180) return (s, "fold angle limit", false);
+                double target;
+                bool last = false;
+                if (direction < 0)
+                {
+                    // Near flat the fold angles shrink in proportion to progress: aim just under the stop angle.
+                    double sNear = s * 0.7 * nearFlat / maxRho;
+                    target = s - h;
+                    foreach (double k in keys) if (k < s - 1e-12 && k >= target - 1e-9) target = k; // land on keyframes exactly
+                    if (target <= sNear) { target = sNear; last = true; }
+                }
+                else
+                {
+                    target = Math.Min(s + h, _settings.MaxProgress);
+                    foreach (double k in keys) if (k > s + 1e-12 && k <= target + 1e-9) target = k;
+                }
+                var tangent = Tangent(x, s);
+                if (tangent == null) return (s, _dof == 0 ? "rigid: no folding motion" : "turning point of progress", false);
+                var trial = new double[x.Length];
+                for (int i = 0; i < x.Length; i++) trial[i] = x[i] + (target - s) * tangent[i];
+                if (!Correct(trial, target, out _))
+                {
+                    h /= 2;
+                    if (h < 1e-4 * _settings.StepProgress) return (s, "corrector failed", false);
+                    continue;
+                }
+                x = trial; s = target; _steps++;
+                Accept(x);
+                if (keys.Any(k => Math.Abs(k - s) < 1e-12)) Keep(s, x);
+                h = Math.Min(_settings.StepProgress, 1.5 * h);
+                if (last && MaxAbs(_dihedrals.Angles(x)) >= nearFlat && h < 1e-4 * _settings.StepProgress)
+                    return (s, "corrector failed", false);
+            }
+        }
+
+        private double Progress(double[] x)
+        {
+            double s = 0;
+            for (int i = 0; i < _rho0.Length; i++) s += _rho0[i] * _dihedrals.Angle(x, i);
+            return s / _rho0Squared;
+        }
+
+        /// <summary>d progress / dx per metre, zero on fixed columns.</summary>
+        private double[] ProgressGradient(double[] x)
+        {
+            var g = new double[x.Length];
+            for (int i = 0; i < _rho0.Length; i++)
+            {
+                double w = _rho0[i] / _rho0Squared;
+                var (ga, gb, gc, gd) = _dihedrals.Gradient(x, i);
+                AddTo(g, _dihedrals.Wings[4 * i], w * ga); AddTo(g, _dihedrals.Wings[4 * i + 1], w * gb);
+                AddTo(g, _dihedrals.Wings[4 * i + 2], w * gc); AddTo(g, _dihedrals.Wings[4 * i + 3], w * gd);
+            }
+            for (int c = 0; c < g.Length; c++) if (_fixed[c]) g[c] = 0;
+            return g;
+        }
+
+        private static void AddTo(double[] g, int v, Vec3 d) { g[3 * v] += d.X; g[3 * v + 1] += d.Y; g[3 * v + 2] += d.Z; }
+
+        /// <summary>Predictor direction in metres per unit progress, or null when the mesh cannot move.</summary>
+        private double[]? Tangent(double[] x, double s)
+        {
+            var j = _model.Jacobian(x);
+            var factor = Factor(j);
+            var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, _fixed, _threshold, 4, _nullBasis);
+            int k = ritz.Values.Count(v => v <= _threshold);
+            if (_dof < 0) _dof = k;
+            _nullBasis = ritz.Vectors.Take(k).ToList();
+            if (k == 0) return null;
+            // Fold-angle rates of each null vector; match the uniform-scaling rates rho / s in least squares.
+            int m = _dihedrals.Count;
+            var rates = DenseMatrix.Create(m, k, 0);
+            for (int b = 0; b < k; b++)
+                for (int i = 0; i < m; i++)
+                {
+                    var (ga, gb, gc, gd) = _dihedrals.Gradient(x, i);
+                    rates[i, b] = Dot(ga, _nullBasis[b], _dihedrals.Wings[4 * i]) + Dot(gb, _nullBasis[b], _dihedrals.Wings[4 * i + 1])
+                                + Dot(gc, _nullBasis[b], _dihedrals.Wings[4 * i + 2]) + Dot(gd, _nullBasis[b], _dihedrals.Wings[4 * i + 3]);
+                }
+            var wanted = DenseVector.OfArray(_dihedrals.Angles(x).Select(r => r / s).ToArray());
+            var coefficients = (rates.TransposeThisAndMultiply(rates)).Solve(rates.TransposeThisAndMultiply(wanted));
+            var t = new double[x.Length];
+            for (int b = 0; b < k; b++)
+                for (int c = 0; c < t.Length; c++) t[c] += coefficients[b] * _nullBasis[b][c];
+            var g = ProgressGradient(x);
+            double rate = 0;
+            for (int c = 0; c < t.Length; c++) rate += g[c] * t[c];
+            if (!double.IsFinite(rate) || Math.Abs(rate) < 1e-12 * Math.Sqrt(t.Sum(v => v * v)) * Math.Sqrt(g.Sum(v => v * v)))
+                return null;
+            for (int c = 0; c < t.Length; c++) t[c] /= rate;
+            return t;
+        }
+
+        private static double Dot(Vec3 g, double[] v, int vertex) => g.X * v[3 * vertex] + g.Y * v[3 * vertex + 1] + g.Z * v[3 * vertex + 2];
+
+        private EnvelopeCholesky? _pattern;
+
+        // The Jacobian's pattern never changes along the path: order and size the envelope once.
+        private EnvelopeCholesky Factor(CsrMatrix j)
+        {
+            var f = EnvelopeCholesky.Factor(j, _shift, _fixed, _pattern) ?? EnvelopeCholesky.Factor(j, 1e2 * _shift, _fixed, _pattern)
+                    ?? EnvelopeCholesky.Factor(j, 1e4 * _shift, _fixed, _pattern)
+                    ?? throw new InvalidOperationException("constraint normal matrix could not be factored");
+            _pattern ??= f;
+            return f;
+        }
+
+        private double[] Residuals(double[] x)
+        {
+            var r = new double[_model.RowCount];
+            _model.Residuals(x, r);
+            return r;
+        }
+
+        /// <summary>Newton-corrects x in place onto the constraints with progress pinned to <paramref name="target"/>.</summary>
+        /// <remarks>Each iteration refactors at the current point: a chord step with the predictor's factor was
+        /// tried and diverges, because that factor is nearly singular along the old tangent.</remarks>
+        private bool Correct(double[] x, double target, out int iterations)
+        {
+            int n = x.Length;
+            double previous = double.PositiveInfinity;
+            for (iterations = 0; ; iterations++)
+            {
+                var r = Residuals(x);
+                double s = Progress(x);
+                double worst = MaxAbs(r);
+                if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= 1e-12) return true;
+                if (iterations >= _settings.MaxCorrectorIterations) return worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9;
+                // Stagnation at a least-squares point of inconsistent constraints (non-planar input).
+                if (worst >= 0.9 * previous && worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9) return true;
+                if (!double.IsFinite(worst) || worst > 0.1) return false;
+                previous = worst;
+                var j = _model.Jacobian(x);
+                var factor = Factor(j);
+                var g = ProgressGradient(x);
+                // Progress row in the scaled unknowns y = x / unit, normalised to unit length.
+                double gNorm = 0;
+                for (int c = 0; c < n; c++) { g[c] *= _unit; gNorm += g[c] * g[c]; }
+                gNorm = Math.Sqrt(gNorm);
+                for (int c = 0; c < n; c++) g[c] /= gNorm;
+                double rs = (s - target) / gNorm;
+                var rhs = new double[n];
+                ShiftInvertSubspace.MultiplyTransposed(j, r, rhs);
+                for (int c = 0; c < n; c++) rhs[c] = _fixed[c] ? 0 : -(rhs[c] + g[c] * rs);
+                var z1 = new double[n];
+                var z2 = new double[n];
+                factor.Solve(rhs, z1);
+                factor.Solve(g, z2);
+                double gz1 = 0, gz2 = 0;
+                for (int c = 0; c < n; c++) { gz1 += g[c] * z1[c]; gz2 += g[c] * z2[c]; }
+                double f = gz1 / (1 + gz2);
+                for (int c = 0; c < n; c++) if (!_fixed[c]) x[c] += _unit * (z1[c] - f * z2[c]);
+                _newton++;
+            }
+        }
+
+        private void Accept(double[] x)
+        {
+            _maxStrain = Math.Max(_maxStrain, _model.MaxBarStrain(x));
+            _maxPlanarity = Math.Max(_maxPlanarity, _model.MaxPlanarity(x));
+        }
+
+        private void Keep(double s, double[] x) =>
+            _keyframes.Add(new FoldingKeyframe(s, MaxAbs(_dihedrals.Angles(x)) * 180 / Math.PI, (double[])x.Clone(), _model.MaxBarStrain(x)));
+
+        private static double MaxAbs(double[] v) => v.Length == 0 ? 0 : v.Max(Math.Abs);
+
+        /// <summary>The face whose centroid is nearest the mesh centroid (lowest index on ties).</summary>
+        private static int ReferenceFace(CreaseMesh mesh)
+        {
+            var centroid = Vec3.Zero;
+            for (int v = 0; v < mesh.VertexCount; v++) centroid += mesh.Vertex(v);
+            centroid /= Math.Max(1, mesh.VertexCount);
+            int best = 0; double bestDistance = double.PositiveInfinity;
+            for (int f = 0; f < mesh.FaceCount; f++)
+            {
+                var c = Vec3.Zero;
+                foreach (int v in mesh.Faces[f]) c += mesh.Vertex(v);
+                double d = (c / mesh.Faces[f].Length - centroid).LengthSquared;
+                if (d < bestDistance - 1e-15) { best = f; bestDistance = d; }
+            }
+            return best;
+        }
+    }
+}

@@ -1,0 +1,51 @@
+using Tessel.Core.Checks;
+
+namespace Tessel.Tests.Checks;
+
+public class RigidityAnalysisTests
+{
+    [Theory]
+    // Check values from geometry.md section 4 (derived; Tachi, J. IASS 50(3) 2009 for the Miura sheets):
+    // one degree-4 vertex (1x1 cell = 2x2 quads), Miura 3x3 and 4x4 cells all fold with one DOF.
+    [InlineData(1, 1)]
+    [InlineData(3, 3)]
+    [InlineData(4, 4)]
+    public void FoldedMiuraHasOneDegreeOfFreedom(int cellsX, int cellsY)
+    {
+        var mesh = CheckMeshes.Miura(cellsX, cellsY);
+        var dense = RigidityAnalysis.DegreesOfFreedom(mesh, new RigiditySettings(Method: RankMethod.DenseSvd));
+        var sparse = RigidityAnalysis.DegreesOfFreedom(mesh, new RigiditySettings(Method: RankMethod.ShiftInvert));
+        Assert.Equal(1, dense.DegreesOfFreedom);
+        Assert.Equal(1, sparse.DegreesOfFreedom);
+        // Naive constraint counting (Pellegrino & Calladine 1986) predicts fewer: rows exceed 3N - 7 for the sheets.
+        int naive = Math.Max(0, dense.Unknowns - dense.ConstraintRows - 6);
+        if (cellsX >= 3) Assert.Equal(0, naive);
+        Assert.True(dense.GapRatio > 1e6, $"dense gap {dense.GapRatio}");
+        Assert.True(sparse.GapRatio > 1e2, $"sparse gap {sparse.GapRatio}");
+        Assert.Equal(dense.Rank, sparse.Rank);
+    }
+
+    [Theory]
+    [InlineData(3, 11)]
+    [InlineData(4, 12)]
+    public void GenericTriangulatedDiskHasBoundaryMinusThreeDegreesOfFreedom(int n, int seed)
+    {
+        // Derived here (geometry.md section 4): E = 3V - Vb - 3 independent bars leave Vb - 3 motions.
+        var mesh = CheckMeshes.RandomTriangulatedDisk(n, seed);
+        int boundary = mesh.BoundaryVertices().Count(b => b);
+        Assert.Equal(4 * n, boundary);
+        var dense = RigidityAnalysis.DegreesOfFreedom(mesh, new RigiditySettings(Method: RankMethod.DenseSvd));
+        var sparse = RigidityAnalysis.DegreesOfFreedom(mesh, new RigiditySettings(Method: RankMethod.ShiftInvert));
+        Assert.Equal(boundary - 3, dense.DegreesOfFreedom);
+        Assert.Equal(boundary - 3, sparse.DegreesOfFreedom);
+    }
+
+    [Fact]
+    public void FlatMiuraIsABranchPointWithExtraMobility()
+    {
+        // At theta = 0 every crease can start to fold: the rank drops (geometry.md section 4, derived).
+        var flat = CheckMeshes.Miura(3, 3, thetaDeg: 0);
+        var r = RigidityAnalysis.DegreesOfFreedom(flat, new RigiditySettings(Method: RankMethod.DenseSvd));
+        Assert.True(r.DegreesOfFreedom > 1, $"flat DOF {r.DegreesOfFreedom}");
+    }
+}
