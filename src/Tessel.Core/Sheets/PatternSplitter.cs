@@ -5,9 +5,10 @@ namespace Tessel.Core.Sheets;
 /// <summary>Cuts a flat pattern into parts that each fit a rectangle, along crease lines: a part is a
 /// connected set of whole faces, so every seam runs along mesh edges.</summary>
 /// <remarks>Recursive strip splitting: a part that fits in no turning is turned to its minimum-area
-/// rectangle and cut across its long side into k strips by face centroid, k being the fewest strips whose
-/// length (less one face) fits the sheet; strips that fall apart become separate parts; each strip is
-/// treated the same way, so a pattern too wide both ways ends up as a grid of compact parts.</remarks>
+/// rectangle and cut across its long side into k equal strips by face centroid, k being the fewest for
+/// which every strip's faces fit the sheet's length (greedy maximal strips if no k up to four more does);
+/// strips that fall apart become separate parts; each strip is treated the same way, so a pattern too
+/// large both ways ends up as a grid of compact parts.</remarks>
 public static class PatternSplitter
 {
     /// <param name="faces">#F face polygons in mm (open rings).</param>
@@ -40,24 +41,49 @@ public static class PatternSplitter
         // A strip as wide as the part must still fit across; if not, strips are cut to the short side
         // and the next level cuts them the other way.
         double stripRoom = box.Height <= shortSide ? longSide : shortSide;
-        double faceSize = part.Max(f => MinimumAreaRectangle.BoxAt(faces[f], box.Angle).Width);
-        double usable = Math.Max(stripRoom - faceSize, stripRoom / 2);
-        int k = Math.Max(2, (int)Math.Ceiling(box.Width / usable - 1e-9));
+        var order = part.OrderBy(f => Centroid(faces[f]).Rotated(box.Angle).X).ThenBy(f => f).ToArray();
+        var centre = order.Select(f => Centroid(faces[f]).Rotated(box.Angle).X - box.Min.X).ToArray();
+        var low = order.Select(f => faces[f].Min(v => v.Rotated(box.Angle).X)).ToArray();
+        var high = order.Select(f => faces[f].Max(v => v.Rotated(box.Angle).X)).ToArray();
 
-        var groups = new List<int>[k];
-        for (int s = 0; s < k; s++) groups[s] = [];
-        foreach (int f in part)
+        // Fewest equal strips whose faces all fit the strip room; failing that, greedy maximal strips.
+        List<int[]>? pieces = null;
+        int kMin = Math.Max(2, (int)Math.Ceiling(box.Width / stripRoom - 1e-9));
+        for (int k = kMin; k <= kMin + 4 && pieces is null; k++)
         {
-            double x = Centroid(faces[f]).Rotated(box.Angle).X - box.Min.X;
-            int s = Math.Clamp((int)Math.Floor(x / (box.Width / k)), 0, k - 1);
-            groups[s].Add(f);
+            var strip = centre.Select(c => Math.Clamp((int)Math.Floor(c / (box.Width / k)), 0, k - 1)).ToArray();
+            bool fits = true;
+            for (int s = 0; s < k && fits; s++)
+            {
+                var members = Enumerable.Range(0, order.Length).Where(i => strip[i] == s).ToArray();
+                if (members.Length > 0) fits = members.Max(i => high[i]) - members.Min(i => low[i]) <= stripRoom + 1e-9;
+            }
+            if (fits)
+                pieces = Enumerable.Range(0, k).Select(s => Enumerable.Range(0, order.Length).Where(i => strip[i] == s).Select(i => order[i]).ToArray())
+                    .Where(g => g.Length > 0).ToList();
         }
-        var pieces = groups.Where(g => g.Count > 0).Select(g => g.ToArray()).ToList();
+        if (pieces is null)
+        {
+            pieces = [];
+            var current = new List<int>();
+            double from = double.PositiveInfinity, to = double.NegativeInfinity;
+            for (int i = 0; i < order.Length; i++)
+            {
+                double nf = Math.Min(from, low[i]), nt = Math.Max(to, high[i]);
+                if (current.Count > 0 && nt - nf > stripRoom + 1e-9)
+                {
+                    pieces.Add(current.ToArray());
+                    current.Clear();
+                    nf = low[i]; nt = high[i];
+                }
+                current.Add(order[i]); from = nf; to = nt;
+            }
+            pieces.Add(current.ToArray());
+        }
         if (pieces.Count < 2)
         {
             // One face spans the whole part: halve by centroid order instead so the recursion ends.
-            var sorted = part.OrderBy(f => Centroid(faces[f]).Rotated(box.Angle).X).ThenBy(f => f).ToArray();
-            pieces = [sorted[..(sorted.Length / 2)], sorted[(sorted.Length / 2)..]];
+            pieces = [order[..(order.Length / 2)], order[(order.Length / 2)..]];
         }
         foreach (var piece in pieces)
             foreach (var component in Components(piece, neighbours))

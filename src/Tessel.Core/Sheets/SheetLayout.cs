@@ -44,12 +44,13 @@ public static class SheetLayout
             if (mesh.IsInterior(e)) { neighbourSets[mesh.EdgeFaceLeft[e]].Add(mesh.EdgeFaceRight[e]); neighbourSets[mesh.EdgeFaceRight[e]].Add(mesh.EdgeFaceLeft[e]); }
         var neighbours = neighbourSets.Select(s => s.ToArray()).ToArray();
 
-        var partOf = PatternSplitter.Split(facePolys, neighbours, usableW - allowance, usableH - allowance);
+        var partOf = ChooseSplit(facePolys, neighbours, usableW, usableH, allowance, settings.SpacingMm);
         int partCount = partOf.Length == 0 ? 0 : partOf.Max() + 1;
         var partFaces = Enumerable.Range(0, partCount).Select(p => Enumerable.Range(0, partOf.Length).Where(f => partOf[f] == p).ToArray()).ToArray();
-        var partPolys = partFaces.Select(fs => UnaryUnionOp.Union(fs.Select(f => (NtsShape)NtsGeometry.Polygon(facePolys[f])).ToArray())).ToArray();
+        var partPolys = partFaces.Select(fs => UnionOfFaces(fs.Select(f => NtsGeometry.Polygon(facePolys[f])).ToArray())).ToArray();
 
         var warnings = new List<string>();
+        var faceShapes = facePolys.Select(NtsGeometry.Polygon).ToArray();
 
         // Seams, one per cut edge, with the tab on the lower-numbered part unless it overlaps there.
         var seamEdges = Enumerable.Range(0, mesh.EdgeCount).Where(e => mesh.IsInterior(e) && partOf[mesh.EdgeFaceLeft[e]] != partOf[mesh.EdgeFaceRight[e]]).ToArray();
@@ -69,8 +70,9 @@ public static class SheetLayout
                 int matingFace = tabFace == fl ? fr : fl;
                 var tab = GlueTab.Build(model[v0], model[v1], facePolys[matingFace], settings.TabWidthMm, settings.TabTaperDegrees * Math.PI / 180, rootOffset);
                 int part = partOf[tabFace];
-                var poly = NtsGeometry.Polygon(tab.Polygon);
-                bool overlaps = Overlaps(poly, partPolys[part]) || tabsOfPart[part].Any(o => Overlaps(poly, o));
+                // Shrunk by a micrometre so that sharing the seam edge with its own face does not count.
+                var core = NtsGeometry.Polygon(tab.Polygon).Buffer(-1e-3);
+                bool overlaps = partFaces[part].Any(f => Overlaps(core, faceShapes[f])) || tabsOfPart[part].Any(o => Overlaps(core, o));
                 if (chosen is null || !overlaps) { chosen = tab; chosenPart = part; clean = !overlaps; }
                 if (!overlaps) break;
             }
@@ -290,6 +292,35 @@ public static class SheetLayout
         return new SheetLayoutResult(sheets.ToArray(), parts, seams, orderedLabels, figures);
     }
 
+    /// <summary>Splits for the full usable area and for its halves each way, and keeps the split whose parts
+    /// (boxed with the tab allowance) pack onto the fewest sheets, then the one with fewest parts: smaller
+    /// parts sometimes pair up on a sheet where larger ones each need their own.</summary>
+    private static int[] ChooseSplit(Vec2[][] facePolys, int[][] neighbours, double usableW, double usableH, double allowance, double spacing)
+    {
+        double w = usableW - allowance, h = usableH - allowance;
+        (double W, double H)[] targets = [(w, h), (w, h / 2), (w / 2, h)];
+        int[]? best = null; int bestSheets = int.MaxValue, bestParts = int.MaxValue;
+        foreach (var (tw, th) in targets)
+        {
+            int[] partOf;
+            try { partOf = PatternSplitter.Split(facePolys, neighbours, tw, th); }
+            catch (InvalidOperationException) when (best is not null) { continue; }
+            int parts = partOf.Max() + 1;
+            var items = new (double, double)[parts];
+            for (int p = 0; p < parts; p++)
+            {
+                var hull = MinimumAreaRectangle.ConvexHull(Enumerable.Range(0, partOf.Length).Where(f => partOf[f] == p).SelectMany(f => facePolys[f]).ToArray());
+                var box = MinimumAreaRectangle.FittingBox(hull, w, h) ?? MinimumAreaRectangle.Of(hull);
+                items[p] = (box.Width + allowance + spacing, box.Height + allowance + spacing);
+            }
+            int sheets;
+            try { sheets = RectanglePacker.Pack(items, usableW + spacing, usableH + spacing).Max(pl => pl.Bin) + 1; }
+            catch (ArgumentException) { sheets = int.MaxValue - 1; }
+            if (sheets < bestSheets || (sheets == bestSheets && parts < bestParts)) { best = partOf; bestSheets = sheets; bestParts = parts; }
+        }
+        return best!;
+    }
+
     /// <summary>Seam code of the s-th seam: A..Z, AA..ZZ, AAA.. (letters only, so codes never read as part numbers).</summary>
     public static string SeamCode(int index)
     {
@@ -299,7 +330,24 @@ public static class SheetLayout
         return new string(chars.ToArray());
     }
 
-    private static bool Overlaps(NtsShape a, NtsShape b) => a.Intersects(b) && a.Intersection(b).Area > 1e-6;
+    /// <summary>Union of faces that share whole edges with identical end points (a polygon coverage): the
+    /// coverage union only merges the shared edges, which is far faster than a general overlay; a general
+    /// union is the fallback should the faces not form a clean coverage.</summary>
+    private static NtsShape UnionOfFaces(Polygon[] faces)
+    {
+        var collection = NtsGeometry.Factory.CreateMultiPolygon(faces);
+        try
+        {
+            var union = NetTopologySuite.Operation.OverlayNG.CoverageUnion.Union(collection);
+            if (union is Polygon && union.IsValid) return union;
+        }
+        catch (TopologyException) { }
+        return UnaryUnionOp.Union(faces.Cast<NtsShape>().ToArray());
+    }
+
+    /// <summary>True when the (slightly shrunk) tab core meets another polygon.</summary>
+    private static bool Overlaps(NtsShape core, NtsShape other) =>
+        core.EnvelopeInternal.Intersects(other.EnvelopeInternal) && core.Intersects(other);
 
     /// <summary>A seam code inside the facet beside its edge, baseline along the edge, shrunk to fit.</summary>
     private static SheetLabel EdgeLabel(string code, Vec2 p, Vec2 q, Vec2[] facet, double height, Func<Vec2, Vec2> place, int sheet)
