@@ -33,6 +33,14 @@ public sealed record FabricationSettings
     /// <summary>Height of seam codes and part numbers; shrunk to fit short edges.</summary>
     public double LabelHeightMm { get; init; } = 2.5;
 
+    /// <summary>Height kept free of parts along the bottom of every sheet, inside the margins, for the
+    /// writers' title, scale bar, legend and cautions (0 = none: put those on a cover sheet).</summary>
+    public double AnnotationStripMm { get; init; }
+
+    /// <summary>The strip kept free for annotations on every front sheet (height 0 when none).</summary>
+    public SheetRegion AnnotationStrip =>
+        new(MarginMm, Sheet.HeightMm - MarginMm - AnnotationStripMm, Sheet.WidthMm - 2 * MarginMm, AnnotationStripMm);
+
     /// <summary>Least distance between two parts' cut outlines.</summary>
     public double SpacingMm => KerfMm + PartGapMm;
 

@@ -26,7 +26,7 @@ public sealed record SheetFigures
     public FoldFigures[] Folds { get; init; } = [];
     public int SheetCount { get; init; }
     public int PartCount { get; init; }
-    /// <summary>Per sheet: area inside part outlines over the usable area (inside the margins).</summary>
+    /// <summary>Per sheet: area inside part outlines over the usable area (inside the margins, above the annotation strip).</summary>
     public double[] Utilisation { get; init; } = [];
     public string[] SeamCodes { get; init; } = [];
     /// <summary>Facets narrower than the material's minimum (10 t).</summary>

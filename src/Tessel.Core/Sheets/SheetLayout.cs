@@ -27,7 +27,9 @@ public static class SheetLayout
         var material = settings.Material;
         double k = settings.MillimetresPerMetre;
         double sheetW = settings.Sheet.WidthMm, sheetH = settings.Sheet.HeightMm, margin = settings.MarginMm;
-        double usableW = sheetW - 2 * margin, usableH = sheetH - 2 * margin;
+        double usableW = sheetW - 2 * margin;
+        // Parts stay above the annotation strip, with the part spacing between them and it.
+        double usableH = sheetH - 2 * margin - (settings.AnnotationStripMm > 0 ? settings.AnnotationStripMm + settings.SpacingMm : 0);
         double rootOffset = material.ThicknessMm > 0.5 ? material.ThicknessMm : 0;
         // Tabs reach at most width + root offset past a part's faces, and the kerf allowance half a kerf
         // more, so a part whose faces fit the usable area less twice that fits with its tabs in any turning.
@@ -196,6 +198,11 @@ public static class SheetLayout
             foreach (var stroke in arrow) lines.Add(new PendingLine(p, 0, LineClass.Label, stroke, false, LineJob.Label));
         }
 
+        // Labels become single-stroke glyphs; the font turns counter-clockwise as seen, our angles clockwise.
+        foreach (var (part, label) in labels)
+            foreach (var stroke in StrokeFont.Layout(label.Text, label.Centre, label.HeightMm, -label.AngleRadians, TextAnchor.MiddleCentre))
+                lines.Add(new PendingLine(part, label.Purpose == LabelPurpose.PartNumber ? 0 : 1, LineClass.Label, stroke, false, LineJob.Label));
+
         // Sheets: the lines in job order, parts in number order, each part's lines in edge order.
         var sheets = new List<Sheet>();
         double outlineCut = 0, innerCut = 0, score = 0, backScore = 0, perfCut = 0, labelLength = 0, travel = 0;
@@ -358,8 +365,7 @@ public static class SheetLayout
         var mid = (p + q) / 2;
         if (Vec2.Dot(PatternSplitter.Centroid(facet) - mid, inward) < 0) inward = -inward;
         double depth = facet.Max(v => Vec2.Dot(v - p, inward));
-        // Stroke glyphs advance about 0.75 of their height (common practice, no source).
-        double h = Math.Min(height, Math.Min(0.8 * length / (0.75 * code.Length), 0.4 * depth));
+        double h = Math.Min(height, Math.Min(0.8 * length / StrokeFont.Measure(code, 1), 0.4 * depth));
         var centre = place(mid + (0.8 * h) * inward);
         var dir = place(q) - place(p);
         return new SheetLabel(sheet, code, centre, h, Upright(Math.Atan2(dir.Y, dir.X)), LabelPurpose.SeamCode);
@@ -373,10 +379,10 @@ public static class SheetLayout
         var c = place(PatternSplitter.Centroid(facePolys[largest]));
         string text = (part + 1).ToString(System.Globalization.CultureInfo.InvariantCulture);
         double h = Math.Min(1.5 * height, 0.3 * MinimumWidth(facePolys[largest]));
-        h = Math.Min(h, 0.3 * MaxWidth(facePolys[largest]) / (0.75 * text.Length + 1.5));
+        h = Math.Min(h, 0.3 * MaxWidth(facePolys[largest]) / (StrokeFont.Measure(text, 1) + 1.5));
         var up = new Vec2(0, -1).Rotated(angle);
         var baseline = up.Rotated(Math.PI / 2);
-        double textHalf = 0.75 * h * text.Length / 2;
+        double textHalf = StrokeFont.Measure(text, h) / 2;
         var numberCentre = c - (0.5 * h) * baseline;
         var arrowCentre = c + (textHalf + 0.2 * h) * baseline;
         var tail = arrowCentre - (0.6 * h) * up;

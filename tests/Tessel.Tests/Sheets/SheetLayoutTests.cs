@@ -255,6 +255,54 @@ public class SheetLayoutTests
         Assert.Equal(CardLayout.Labels, again.Labels);
     }
 
+    [Fact]
+    public void LabelsAreStrokeTextInsideTheirParts()
+    {
+        foreach (var sheet in CardLayout.Sheets.Where(s => s.Side == "front"))
+        {
+            var outlines = CardLayout.Parts.Where(p => p.Sheet == sheet.Number).Select(p => Poly(p.Outline)).ToArray();
+            var strokes = sheet.Lines.Where(l => l.Class == LineClass.Label).ToArray();
+            Assert.NotEmpty(strokes);
+            foreach (var l in strokes)
+                foreach (var p in l.Points)
+                {
+                    var pt = new GeometryFactory().CreatePoint(new Coordinate(p.X, p.Y));
+                    Assert.Single(outlines, o => o.Contains(pt));
+                }
+        }
+        // Labels are upright: baseline within (-90, 90] degrees.
+        Assert.All(CardLayout.Labels, l => Assert.InRange(l.AngleRadians, -Math.PI / 2, Math.PI / 2 + 1e-12));
+        Assert.Equal(CardLayout.Figures.PartCount, CardLayout.Labels.Count(l => l.Purpose == LabelPurpose.PartNumber));
+    }
+
+    [Fact]
+    public void AnnotationStripStaysFreeOfParts()
+    {
+        var settings = Card with { AnnotationStripMm = 40 };
+        var layout = SheetLayout.Lay(Miura, settings);
+        var strip = settings.AnnotationStrip;
+        Assert.Equal((8.0, 297.0 - 8 - 40, 194.0, 40.0), (strip.X, strip.Y, strip.Width, strip.Height));
+        foreach (var part in layout.Parts)
+            Assert.All(part.Outline, p => Assert.True(p.Y <= strip.Y - settings.SpacingMm + 1e-9, $"part {part.Number} reaches y = {p.Y}"));
+    }
+
+    [Fact]
+    public void KerfGrowsTheOutlineByHalfTheKerf()
+    {
+        // Half a kerf outward along the whole perimeter, plus mitred corners: area grows by about P k / 2.
+        var small = FlatMiura.Build(2, 2);
+        var none = SheetLayout.Lay(small, Card with { KerfMm = 0 });
+        var kerf = SheetLayout.Lay(small, Card with { KerfMm = 0.4 });
+        Assert.Equal(1, none.Figures.PartCount);
+        double perimeter = none.Figures.OutlineCutLengthMm;
+        double grown = kerf.Parts[0].AreaMm2 - none.Parts[0].AreaMm2;
+        Assert.InRange(grown, perimeter * 0.2, perimeter * 0.2 * 1.1);
+        // Every outline point of the kerf layout is 0.2 mm from the uncompensated outline.
+        var a = Poly(none.Parts[0].Outline.Select(p => (p - none.Parts[0].Offset).Rotated(-none.Parts[0].AngleRadians)).ToArray());
+        foreach (var p in kerf.Parts[0].Outline.Select(p => (p - kerf.Parts[0].Offset).Rotated(-kerf.Parts[0].AngleRadians)))
+            Assert.True(a.ExteriorRing.Distance(new GeometryFactory().CreatePoint(new Coordinate(p.X, p.Y))) >= 0.2 - 1e-6);
+    }
+
     private static double SegmentDistance(Vec2 p, Vec2 a, Vec2 b)
     {
         var d = b - a;
