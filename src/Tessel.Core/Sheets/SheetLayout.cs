@@ -21,7 +21,11 @@ public static class SheetLayout
     /// <summary>Lays out <paramref name="pattern"/> (metres, full scale) on sheets.</summary>
     /// <exception cref="ArgumentException">When the margins and tab allowance leave no room on the sheet.</exception>
     /// <exception cref="InvalidOperationException">When a single facet does not fit the sheet at this scale.</exception>
-    public static SheetLayoutResult Lay(FlatPattern pattern, FabricationSettings settings)
+    public static SheetLayoutResult Lay(FlatPattern pattern, FabricationSettings settings) => Lay(pattern, settings, null);
+
+    /// <summary>As <see cref="Lay(FlatPattern, FabricationSettings)"/>, with the parts given (#F part number
+    /// of each face, numbered from 0 by lowest face) instead of found; for tests of seams and tabs.</summary>
+    internal static SheetLayoutResult Lay(FlatPattern pattern, FabricationSettings settings, int[]? givenParts)
     {
         var mesh = pattern.Folded;
         var material = settings.Material;
@@ -46,7 +50,7 @@ public static class SheetLayout
             if (mesh.IsInterior(e)) { neighbourSets[mesh.EdgeFaceLeft[e]].Add(mesh.EdgeFaceRight[e]); neighbourSets[mesh.EdgeFaceRight[e]].Add(mesh.EdgeFaceLeft[e]); }
         var neighbours = neighbourSets.Select(s => s.ToArray()).ToArray();
 
-        var partOf = ChooseSplit(facePolys, neighbours, usableW, usableH, allowance, settings.SpacingMm);
+        var partOf = givenParts ?? ChooseSplit(facePolys, neighbours, usableW, usableH, allowance, settings.SpacingMm);
         int partCount = partOf.Length == 0 ? 0 : partOf.Max() + 1;
         var partFaces = Enumerable.Range(0, partCount).Select(p => Enumerable.Range(0, partOf.Length).Where(f => partOf[f] == p).ToArray()).ToArray();
         var partPolys = partFaces.Select(fs => UnionOfFaces(fs.Select(f => NtsGeometry.Polygon(facePolys[f])).ToArray())).ToArray();
