@@ -8,8 +8,9 @@ namespace Tessel.Core.Sheets;
 /// score or engrave them like any other line; no font files are needed at run time.</summary>
 /// <remarks>
 /// Glyphs sit on a grid whose capitals are <see cref="CapHeightUnits"/> units tall; the text height
-/// passed in is the capital height in millimetres. Lower-case letters are drawn as capitals.
-/// A character the font does not know is drawn as a box with a diagonal, never dropped and never
+/// passed in is the capital height in millimetres. Lower-case letters are drawn as capitals, accented
+/// Latin letters as their base letter, typographic quotes and dashes as plain ones.
+/// A character the font does not know is drawn as a crossed box, never dropped and never
 /// an exception, so a missing glyph shows on the proof instead of silently changing a label.
 /// Lines of text are separated by '\n' and stacked downwards <see cref="LineSpacing"/> heights apart.
 /// </remarks>
@@ -130,7 +131,12 @@ public static class StrokeFont
         return count == 0 ? 0 : width + (count - 1) * LetterGapUnits;
     }
 
-    private static char Normalise(char c) => char.ToUpperInvariant(c);
+    /// <summary>Upper case first (so accented lower-case letters reach the fold table), then the fold.</summary>
+    private static char Normalise(char c)
+    {
+        char upper = char.ToUpperInvariant(c);
+        return StrokeFontGlyphs.Folds.TryGetValue(upper, out char folded) ? folded : upper;
+    }
 
     private static Glyph GlyphFor(char c) =>
         Glyphs.TryGetValue(Normalise(c), out Glyph g) ? g : UnknownGlyph;

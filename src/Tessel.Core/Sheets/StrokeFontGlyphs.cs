@@ -78,11 +78,33 @@ internal static class StrokeFontGlyphs
         ['>'] = new(4, "0,5.5 4,3 0,0.5"),
         ['_'] = new(4, "0,-1 4,-1"),
         ['*'] = new(4, "2,1.5 2,4.5|0.7,2.25 3.3,3.75|0.7,3.75 3.3,2.25"),
+        ['&'] = new(4, "4,0 0.6,4.4 0.6,5.3 1.4,6 2.3,6 3,5.3 3,4.5 0,2 0,0.9 0.9,0 2.4,0 4,2"),
+        ['['] = new(1.5, "1.5,6.5 0.3,6.5 0.3,-0.5 1.5,-0.5"),
+        [']'] = new(1.5, "0,6.5 1.2,6.5 1.2,-0.5 0,-0.5"),
+        ['|'] = new(0.6, "0.3,6.5 0.3,-1"),
         ['\u00B0'] = new(1.6, "0.3,6 1.3,6.3 1.6,5.3 0.6,5 0.3,6"),   // degree sign: a small tilted square
         ['\u00D7'] = new(4, "0.8,1.8 3.2,4.2|0.8,4.2 3.2,1.8"),       // multiplication sign
     };
 
-    /// <summary>Drawn for any character the font does not know: a box with one diagonal, so the
-    /// gap is obvious on the sheet instead of silently missing.</summary>
-    internal static readonly GlyphSource Unknown = new(4, "0,0 4,0 4,6 0,6 0,0 4,6");
+    /// <summary>Characters drawn with another character's glyph: accented Latin letters with their
+    /// base letter, typographic quotes and dashes with the plain ones, and the no-break space as a space.
+    /// (String normalisation is unavailable under invariant globalisation, so the fold is explicit.)</summary>
+    internal static readonly IReadOnlyDictionary<char, char> Folds = BuildFolds(
+        ("\u00C0\u00C1\u00C2\u00C3\u00C4\u00C5", 'A'), ("\u00C7", 'C'), ("\u00C8\u00C9\u00CA\u00CB", 'E'),
+        ("\u00CC\u00CD\u00CE\u00CF", 'I'), ("\u00D1", 'N'), ("\u00D2\u00D3\u00D4\u00D5\u00D6\u00D8", 'O'),
+        ("\u00D9\u00DA\u00DB\u00DC", 'U'), ("\u00DD\u0178", 'Y'),
+        ("\u2018\u2019\u201A\u2032", '\''), ("\u201C\u201D\u201E\u2033", '"'),
+        ("\u2010\u2011\u2012\u2013\u2014\u2212", '-'), ("\u00A0\u2007\u202F", ' '), ("\u00B7\u2022", '*'));
+
+    private static Dictionary<char, char> BuildFolds(params (string From, char To)[] groups)
+    {
+        var folds = new Dictionary<char, char>();
+        foreach (var (from, to) in groups)
+            foreach (char c in from) folds[c] = to;
+        return folds;
+    }
+
+    /// <summary>Drawn for any character the font does not know: a box with both diagonals (unlike the
+    /// slashed zero), so the gap is obvious on the sheet instead of silently missing.</summary>
+    internal static readonly GlyphSource Unknown = new(4, "0,0 4,0 4,6 0,6 0,0 4,6|0,6 4,0");
 }

@@ -82,6 +82,15 @@ public class StrokeFontTests
     }
 
     [Fact]
+    public void Accents_and_typographic_punctuation_fold_to_plain_glyphs()
+    {
+        static string Shape(string t) => string.Join(";", StrokeFont.Layout(t, Vec2.Zero, 5).Select(s => string.Join(" ", s.Select(p => $"{p.X:F3},{p.Y:F3}"))));
+        Assert.Equal(Shape("CAFE - 'A' \"B\""), Shape("caf\u00E9 \u2013 \u2018\u00C0\u2019 \u201CB\u201D"));
+        Assert.Equal(Shape("ZURICH"), Shape("Z\u00FCrich"));
+        Assert.True(StrokeFont.IsSupported('\u00E9'));
+    }
+
+    [Fact]
     public void Unknown_characters_become_a_visible_box_not_a_crash()
     {
         Assert.False(StrokeFont.IsSupported('\u20AC'));
@@ -90,6 +99,10 @@ public class StrokeFontTests
         var b = Bounds(strokes);
         Assert.Equal((0.0, -6.0, 4.0, 0.0), (b.MinX, b.MinY, b.MaxX, b.MaxY));
         Assert.Equal(4.0, StrokeFont.Measure("\u20AC", 6), 9);
+        // A crossed box: the outline-with-diagonal stroke plus the second diagonal, so it cannot be
+        // mistaken for the slashed zero (an octagon with one slash).
+        Assert.Equal(2, strokes.Length);
+        Assert.Equal((0.0, 0.0, 4.0, -6.0), (strokes[1].Min(p => p.X), strokes[1].Max(p => p.Y), strokes[1].Max(p => p.X), strokes[1].Min(p => p.Y)));
         Assert.NotEmpty(StrokeFont.Layout("\u4E2D\uD83D\uDE00\t", Vec2.Zero, 3));
     }
 
