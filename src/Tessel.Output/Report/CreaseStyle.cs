@@ -16,18 +16,22 @@ public static class CreaseStyle
     /// <summary>Edges that stay flat: dotted grey.</summary>
     public static readonly SKColor Flat = new(160, 160, 160);
 
-    /// <summary>A stroke paint for a role; <paramref name="unit"/> scales widths and dashes.</summary>
-    public static SKPaint Paint(CreaseRole role, float unit = 1)
+    // Shared, never disposed: a paint does not own its path effect, and these live for the process.
+    private static readonly SKPathEffect ValleyDash = SKPathEffect.CreateDash([9, 4], 0);
+    private static readonly SKPathEffect FlatDots = SKPathEffect.CreateDash([2, 3], 0);
+
+    /// <summary>A stroke paint for a role (the caller disposes it).</summary>
+    public static SKPaint Paint(CreaseRole role)
     {
         var p = role switch
         {
-            CreaseRole.Mountain => PreviewCanvas.Stroke(Mountain, 1.8f * unit),
-            CreaseRole.Valley => PreviewCanvas.Stroke(Valley, 1.8f * unit),
-            CreaseRole.Boundary => PreviewCanvas.Stroke(Boundary, 2.2f * unit),
-            _ => PreviewCanvas.Stroke(Flat, 1f * unit),
+            CreaseRole.Mountain => PreviewCanvas.Stroke(Mountain, 1.8f),
+            CreaseRole.Valley => PreviewCanvas.Stroke(Valley, 1.8f),
+            CreaseRole.Boundary => PreviewCanvas.Stroke(Boundary, 2.2f),
+            _ => PreviewCanvas.Stroke(Flat, 1f),
         };
-        if (role == CreaseRole.Valley) p.PathEffect = SKPathEffect.CreateDash([9 * unit, 4 * unit], 0);
-        if (role == CreaseRole.Flat) p.PathEffect = SKPathEffect.CreateDash([2 * unit, 3 * unit], 0);
+        if (role == CreaseRole.Valley) p.PathEffect = ValleyDash;
+        if (role == CreaseRole.Flat) p.PathEffect = FlatDots;
         return p;
     }
 

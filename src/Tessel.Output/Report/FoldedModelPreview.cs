@@ -46,7 +46,8 @@ public static class FoldedModelPreview
         if (n == 0) return;
 
         double x0 = sx.Min(), x1 = sx.Max(), y0 = sy.Min(), y1 = sy.Max();
-        double scale = Math.Min(rect.Width / Math.Max(x1 - x0, 1e-12), rect.Height / Math.Max(y1 - y0, 1e-12));
+        // A little air around the model so corners never touch the titles or the colour bar.
+        double scale = 0.94 * Math.Min(rect.Width / Math.Max(x1 - x0, 1e-12), rect.Height / Math.Max(y1 - y0, 1e-12));
         double cx = (x0 + x1) / 2, cy = (y0 + y1) / 2;
         var screen = new SKPoint[n];
         for (int i = 0; i < n; i++)

@@ -24,7 +24,8 @@ public static class HtmlReportWriter
         sb.Append("<title>").Append(E(model.JobName)).Append(" \u2014 Tessel report</title>\n");
         sb.Append("<style>").Append(ReportStyleSheet.Css).Append("</style>\n");
         sb.Append("<script>").Append(FoldingViewerScript.Probe).Append("</script>\n");
-        sb.Append("</head>\n<body>\n<header>\n<h1>").Append(E(model.JobName)).Append("</h1>\n");
+        // The self-test result sits first in the body: opening "#selftest" scrolls to it, i.e. to the top.
+        sb.Append("</head>\n<body>\n<pre id=\"selftest\"></pre>\n<header>\n<h1>").Append(E(model.JobName)).Append("</h1>\n");
         if (model.Description.Length > 0) sb.Append("<p>").Append(E(model.Description)).Append("</p>\n");
         sb.Append("</header>\n<main>\n");
 
@@ -75,7 +76,7 @@ public static class HtmlReportWriter
 
         sb.Append("<section class=\"wide\">\n<h2>cautions</h2>\n");
         List(sb, model.Cautions, "none given");
-        sb.Append("</section>\n</main>\n<pre id=\"selftest\"></pre>\n");
+        sb.Append("</section>\n</main>\n");
         sb.Append("<script type=\"application/json\" id=\"tessel-viewer-data\">")
           .Append(ViewerData.Json(model, bar.MinM, bar.MaxM)).Append("</script>\n");
         sb.Append("<script>").Append(FoldingViewerScript.Viewer).Append("</script>\n</body>\n</html>\n");

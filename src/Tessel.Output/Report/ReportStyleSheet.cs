@@ -33,6 +33,7 @@ figure { margin: 0; }
 figure img { max-width: 100%; height: auto; border: 1px solid var(--rule); border-radius: 4px; display: block; }
 figcaption { font-size: 13px; color: var(--muted); margin-top: 4px; }
 .none { color: var(--muted); font-style: italic; }
+#selftest { white-space: pre-wrap; word-break: break-all; margin: 0; padding: 6px 32px; font-size: 12px; }
 #selftest:empty { display: none; }
 @media (max-width: 900px) { main { grid-template-columns: minmax(0, 1fr); } }
 """;

@@ -37,6 +37,10 @@ public static class SheetThumbnail
         return new PreviewImage(pc.ToPng(), w, h);
     }
 
+    // Shared, never disposed: a paint does not own its path effect, and these live for the process.
+    private static readonly SKPathEffect ValleyDash = SKPathEffect.CreateDash([5, 3], 0);
+    private static readonly SKPathEffect TabDots = SKPathEffect.CreateDash([2, 2], 0);
+
     private static SKPaint PaintFor(LineClass cls)
     {
         var p = cls switch
@@ -49,8 +53,8 @@ public static class SheetThumbnail
             LineClass.Label => PreviewCanvas.Stroke(new SKColor(130, 100, 160), 0.8f),
             _ => PreviewCanvas.Stroke(new SKColor(175, 175, 175), 0.8f),
         };
-        if (cls == LineClass.Valley) p.PathEffect = SKPathEffect.CreateDash([5, 3], 0);
-        if (cls == LineClass.TabFold) p.PathEffect = SKPathEffect.CreateDash([2, 2], 0);
+        if (cls == LineClass.Valley) p.PathEffect = ValleyDash;
+        if (cls == LineClass.TabFold) p.PathEffect = TabDots;
         p.StrokeJoin = SKStrokeJoin.Round;
         return p;
     }

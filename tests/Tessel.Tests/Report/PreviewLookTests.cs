@@ -15,6 +15,7 @@ public class PreviewLookTests
         File.WriteAllBytes(Path.Combine(dir, "pareto.png"), ParetoPlot.Render(m.ParetoFront).Png);
         File.WriteAllBytes(Path.Combine(dir, "convergence.png"), ConvergencePlot.Render(m.Convergence).Png);
         File.WriteAllBytes(Path.Combine(dir, "sheet.png"), SheetThumbnail.Render(m.Sheets[0]).Png);
+        File.WriteAllBytes(Path.Combine(dir, "single.png"), FoldedModelPreview.Render(DegenerateModelTests.OneFlatTriangle()).Image.Png);
         var written = ReportFiles.WriteAll(dir, m);
         Assert.All(written, p => Assert.True(new FileInfo(p).Length > 0, p));
     }
