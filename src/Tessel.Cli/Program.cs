@@ -7,6 +7,7 @@ namespace Tessel.Cli;
 /// <summary>Entry point: parses the command line, runs one verb, maps failures to exit codes.</summary>
 public static class Program
 {
+    /// <summary>Process entry point.</summary>
     public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
 
     /// <summary>Runs the command line with the given streams; returns the exit code (<see cref="ExitCodes"/>).</summary>

@@ -110,8 +110,11 @@ internal sealed class FieldReader
     public void RejectUnknown()
     {
         if (_obj is not { } o) return;
+        var seen = new HashSet<string>(StringComparer.Ordinal);
         foreach (var p in o.EnumerateObject())
         {
+            // JSON allows a repeated name and keeps the last; in a job file it is a copy-paste slip.
+            if (!seen.Add(p.Name)) throw new JobError(PathOf(p.Name), "appears twice in the same object; keep one");
             if (_asked.Contains(p.Name)) continue;
             string? near = EditDistance.Nearest(p.Name, _asked);
             string hint = near is null

@@ -57,7 +57,9 @@ public sealed class HyperbolicParaboloidSurface(Footprint footprint, double c, d
 {
     public double C { get; } = c;
     public double Rise { get; } = rise;
-    public override string Description => $"hyperbolic paraboloid z = x*y/{C:0.###} m";
+    public override string Description => Rise == 0
+        ? $"hyperbolic paraboloid z = x*y/{C:0.###} m"
+        : $"hyperbolic paraboloid z = {Rise:0.###} + x*y/{C:0.###} m";
     public override HeightJet Jet(double x, double y) => new(Rise + x * y / C, y / C, x / C, 0, 1 / C, 0);
 }
 

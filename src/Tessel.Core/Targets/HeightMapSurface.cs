@@ -36,9 +36,13 @@ public sealed class HeightMapSurface : GraphSurface
         double width, double depth, double minHeight, double maxHeight) =>
         new(footprint, columns, rows, levels.Select(l => minHeight + l * (maxHeight - minHeight)).ToArray(), width, depth);
 
+    /// <summary>Samples per row.</summary>
     public int Columns { get; }
+    /// <summary>Number of rows.</summary>
     public int Rows { get; }
+    /// <summary>Extent along x, metres.</summary>
     public double Width { get; }
+    /// <summary>Extent along y, metres.</summary>
     public double Depth { get; }
 
     public override string Description => $"height map {Columns} x {Rows} samples over {Width:0.###} x {Depth:0.###} m";

@@ -36,6 +36,7 @@ public sealed class MeshSurface : ITargetSurface
         Name = name;
     }
 
+    /// <summary>File name the mesh came from.</summary>
     public string Name { get; }
     public string Description => $"mesh {Name}: {_mesh.VertexCount} vertices, {_mesh.TriangleCount} triangles";
     public Footprint Footprint { get; }

@@ -265,3 +265,15 @@ public class KindParameterTests
         Assert.Equal("target.radius: is not used by kind \"formula\"; remove it (that kind takes formula)", e.Message);
     }
 }
+
+public class DuplicateFieldTests
+{
+    [Fact]
+    public void RepeatedFieldIsReported()
+    {
+        var e = Assert.Throws<JobError>(() => JobLoader.Parse(
+            """{ "target": { "kind": "plane", "rise": 1, "rise": 2, "footprint": { "width": 4, "depth": 3 } } }""", "t.json", Path.GetTempPath()));
+        Assert.Equal("target.rise", e.Where);
+        Assert.Contains("appears twice", e.Message);
+    }
+}

@@ -19,6 +19,7 @@ public sealed class TriangleBvh
     private readonly double[] _box;
     private readonly int[] _left, _start, _count;
 
+    /// <summary>Builds the hierarchy over <paramref name="mesh"/> (kept by reference; do not change it afterwards).</summary>
     public TriangleBvh(TriangleMesh mesh)
     {
         _mesh = mesh;

@@ -4,7 +4,9 @@ namespace Tessel.Core.Targets.Meshes;
 /// <see cref="Triangles"/> three vertex indices per triangle (length 3T).</summary>
 public sealed record TriangleMesh(double[] Positions, int[] Triangles)
 {
+    /// <summary>Number of vertices.</summary>
     public int VertexCount => Positions.Length / 3;
+    /// <summary>Number of triangles.</summary>
     public int TriangleCount => Triangles.Length / 3;
 
     /// <summary>The same mesh with every coordinate multiplied by <paramref name="factor"/> (unit conversion).</summary>
