@@ -42,6 +42,9 @@ public static class SheetAnnotations
     public static AnnotationPlacement AddToStrip(Sheet sheet, SheetRegion strip, AnnotationContent content, LineStyleTable styles)
     {
         ArgumentNullException.ThrowIfNull(sheet);
+        ArgumentNullException.ThrowIfNull(strip);
+        if (!(strip.Width > 0) || !(strip.Height > 0))
+            throw new ArgumentException($"The annotation strip needs a positive size, not {strip.Width} x {strip.Height} mm.", nameof(strip));
         foreach (SheetLine line in sheet.Lines)
         {
             if (line.Class == LineClass.Annotation) continue;

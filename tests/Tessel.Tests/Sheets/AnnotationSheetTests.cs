@@ -103,6 +103,20 @@ public class AnnotationSheetTests
     }
 
     [Fact]
+    public void An_empty_strip_is_refused()
+    {
+        Assert.Throws<ArgumentException>(() => SheetAnnotations.AddToStrip(PartsInTopHalf(), new SheetRegion(10, 200, 190, 0), Content, LineStyleTable.Default));
+    }
+
+    [Fact]
+    public void Legend_words_follow_an_edited_cut_score_mapping()
+    {
+        LineStyleTable shop = LineStyleTable.Default.WithOperation(LineClass.Valley, LineOperation.Cut);
+        Assert.Contains("CUT THROUGH", SheetAnnotations.LegendText(LineClass.Valley, shop).ToUpperInvariant());
+        Assert.DoesNotContain("SCORE", SheetAnnotations.LegendText(LineClass.Valley, shop).ToUpperInvariant());
+    }
+
+    [Fact]
     public void Cover_sheet_carries_all_blocks_and_the_cautions()
     {
         AnnotationPlacement cover = SheetAnnotations.CoverSheet(0, 297, 210, 10, Content, LineStyleTable.Default,
