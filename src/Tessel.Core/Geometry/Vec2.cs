@@ -5,6 +5,9 @@ public readonly record struct Vec2(double X, double Y)
 {
     public static readonly Vec2 Zero = new(0, 0);
 
+    // The generated record ToString would print Perp, itself a Vec2, and recurse without end.
+    public override string ToString() => FormattableString.Invariant($"({X}, {Y})");
+
     public static Vec2 operator +(Vec2 a, Vec2 b) => new(a.X + b.X, a.Y + b.Y);
     public static Vec2 operator -(Vec2 a, Vec2 b) => new(a.X - b.X, a.Y - b.Y);
     public static Vec2 operator -(Vec2 a) => new(-a.X, -a.Y);
