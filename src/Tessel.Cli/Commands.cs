@@ -53,7 +53,14 @@ internal static class Commands
             if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
             string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);
             var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
-            var result = BuildRunner.Run(loaded, folder, progress);
+            var output = BuildRunner.Collect(loaded, progress);
+            var result = BuildRunner.Write(output, loaded, folder, progress);
+            if (output.Terminal is not null && !r.GetValue(quiet)) stdout.Write(output.Terminal);
+            if (output.Problem is not null)
+            {
+                stderr.WriteLine($"tessel: {output.Problem}");
+                return ExitCodes.NotConverged;
+            }
             stdout.WriteLine($"built {loaded.Name}: {result.Files.Count} files in {result.Folder}");
             return ExitCodes.Ok;
         });
@@ -118,8 +125,8 @@ internal static class Commands
                 "targets" => Catalog.TargetKinds,
                 "families" => Catalog.Families,
                 "materials" => Catalog.Materials,
-                _ => SheetSizes.All.Select(s => new CatalogEntry(s.Name,
-                    $"{Mm(s.WidthMm)} x {Mm(s.HeightMm)} mm{(s.Name.StartsWith('A') || s.Name.StartsWith('B') ? " (ISO 216)" : " (US)")}")),
+                _ => Tessel.Core.Sheets.SheetSizes.All.Select(s => new CatalogEntry(s.Name,
+                    $"{Mm(s.WidthMm)} x {Mm(s.HeightMm)} mm{SizeSource(s.Name)}")),
             };
             var list = entries.ToList();
             int w = list.Max(e => e.Name.Length);
@@ -148,4 +155,9 @@ internal static class Commands
         });
         return cmd;
     }
+
+    private static string SizeSource(string name) =>
+        name.Length == 2 && name[0] is 'A' or 'B' && char.IsDigit(name[1]) ? " (ISO 216)"
+        : name is "Letter" or "Tabloid" ? " (ANSI/ASME Y14.1)"
+        : " (laser bed, a typical size: check your machine)";
 }

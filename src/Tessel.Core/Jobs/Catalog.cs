@@ -31,21 +31,19 @@ public static class Catalog
         new("free-triangulated", "triangulated quads with free diagonals; follows any shape, not flat-foldable"),
     ];
 
-    /// <summary>Material names the sheet stage knows (fabrication.material); a minimal list for now.</summary>
-    public static readonly IReadOnlyList<CatalogEntry> Materials =
-    [
-        new("card-300", "300 gsm card, about 0.4 mm: study models up to A2, scored folds"),
-        new("card-350", "350 gsm card, about 0.45 mm: stiffer panels, perforated folds"),
-        new("polypropylene-0.5", "0.5 mm polypropylene: repeated folding, perforated or scored"),
-        new("paper-120", "120 gsm paper: quick fold tests on a desktop printer"),
-    ];
+    /// <summary>Material presets of the sheet stage (fabrication.material); their figures are starting values to test.</summary>
+    public static IReadOnlyList<CatalogEntry> Materials { get; } = Sheets.Materials.All
+        .Select(m => new CatalogEntry(m.Name, FormattableString.Invariant(
+            $"{m.Description}, t = {m.ThicknessMm} mm; folds: mountain {m.MountainMethod}, valley {m.ValleyMethod}; perforation {m.PerforationCutMm}/{m.PerforationBridgeMm} mm")))
+        .ToArray();
 
     /// <summary>Ways to make a fold line (fabrication.foldMethod.mountain / .valley).</summary>
     public static readonly IReadOnlyList<CatalogEntry> FoldMethods =
     [
-        new("score", "half-depth score on the outside of the fold"),
+        new("material", "the material preset's own choice (card: mountains scored on the front, valleys on the back)"),
+        new("score", "half-depth score from the front"),
         new("perforate", "through-cut dashes with uncut bridges; folds either way"),
-        new("two-sided", "scored from the side that ends up outside; the back job is mirrored"),
+        new("two-sided", "half-depth score from the back, in a mirrored second job, so the scored side ends up outside"),
     ];
 
     /// <summary>Which vertices fitting pins to the target (fitting.anchors).</summary>

@@ -289,10 +289,10 @@ public static partial class JobLoader
     private static FabricationSpec ReadFabrication(FieldReader r)
     {
         double scale = r.Number("scale") ?? 100;
-        string material = r.String("material") ?? "card-300";
+        string material = r.String("material") ?? "card";
         var fm = r.Object("foldMethod");
-        string mountain = fm.String("mountain") ?? "score";
-        string valley = fm.String("valley") ?? "score";
+        string mountain = fm.String("mountain") ?? "material";
+        string valley = fm.String("valley") ?? "material";
         fm.RejectUnknown();
         var s = r.Object("sheet");
         var sheetName = s.String("name");
@@ -336,9 +336,9 @@ public static partial class JobLoader
         if (sheetName is not null)
         {
             if (sw is not null || sh is not null) throw new JobError(s.PathOf("name"), "give either a sheet name or widthMm and heightMm, not both");
-            if (!SheetSizes.TryFind(sheetName, out double w, out double h))
-                throw new JobError(s.PathOf("name"), $"unknown sheet size \"{sheetName}\"{Suggest(sheetName, SheetSizes.All.Select(x => x.Name))}; see 'tessel catalog sheets' or give widthMm and heightMm");
-            sheet = new SheetSpec(SheetSizes.All.First(x => string.Equals(x.Name, sheetName, StringComparison.OrdinalIgnoreCase)).Name, w, h);
+            if (!Sheets.SheetSizes.TryFind(sheetName, out var named))
+                throw new JobError(s.PathOf("name"), $"unknown sheet size \"{sheetName}\"{Suggest(sheetName, Sheets.SheetSizes.All.Select(x => x.Name))}; see 'tessel catalog sheets' or give widthMm and heightMm");
+            sheet = new SheetSpec(named.Name, named.Portrait.WidthMm, named.Portrait.HeightMm);
         }
         else if (sw is null && sh is null) sheet = new SheetSpec("A3", 297, 420);
         else

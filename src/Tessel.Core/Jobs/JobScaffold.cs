@@ -121,8 +121,8 @@ public static class JobScaffold
                 // Model scale 1:n.
                 "scale": 100,
                 // See 'tessel catalog materials'.
-                "material": "card-300",
-                "foldMethod": { "mountain": "score", "valley": "score" },
+                "material": "card",
+                "foldMethod": { "mountain": "material", "valley": "material" },
                 // See 'tessel catalog sheets', or give { "widthMm": ..., "heightMm": ... }.
                 "sheet": { "name": "A3" },
                 "orientation": "auto",

@@ -12,6 +12,12 @@ public sealed class BuildOutput
     private readonly List<(string Path, byte[] Bytes)> _files = new();
     private readonly List<(string Section, string Name, object Value)> _figures = new();
 
+    /// <summary>Why the build stopped short (written to the summary as "problem"), or null.</summary>
+    public string? Problem { get; set; }
+
+    /// <summary>A few aligned lines for the end of a build on the terminal, or null.</summary>
+    public string? Terminal { get; set; }
+
     /// <summary>Files in the order they were added.</summary>
     public IReadOnlyList<(string Path, byte[] Bytes)> Files => _files;
 
@@ -52,6 +58,8 @@ public sealed class BuildOutput
             w.WriteStartObject();
             w.WriteString("job", jobName);
             if (description is not null) w.WriteString("description", description);
+            w.WriteBoolean("complete", Problem is null);
+            if (Problem is not null) w.WriteString("problem", Problem);
             w.WriteStartArray("files");
             foreach (var (path, bytes) in _files)
             {

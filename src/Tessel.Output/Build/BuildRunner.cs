@@ -3,6 +3,7 @@ using Tessel.Core.Pipeline;
 using Tessel.Core.Targets;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
+using Tessel.Output.Report;
 using Tessel.Output.Writers;
 
 namespace Tessel.Output.Build;
@@ -10,7 +11,9 @@ namespace Tessel.Output.Build;
 /// <summary>What a finished build wrote.</summary>
 /// <param name="Folder">Absolute output folder.</param>
 /// <param name="Files">Relative path and size of every file written, summary.json last.</param>
-public sealed record BuildResult(string Folder, IReadOnlyList<(string Path, long Bytes)> Files);
+/// <param name="Problem">Null when the build is complete; otherwise the one-line reason it stopped
+/// short (the fit did not converge and the job does not accept that), with the files written so far.</param>
+public sealed record BuildResult(string Folder, IReadOnlyList<(string Path, long Bytes)> Files, string? Problem = null);
 
 /// <summary>Runs the pipeline for one job and writes its files into one output folder.</summary>
 /// <remarks>Every stage adds files and figures to a <see cref="BuildOutput"/>; nothing touches the disk
@@ -30,7 +33,7 @@ public static class BuildRunner
     public static BuildResult Run(Job job, string outputFolder, ProgressReporter progress)
     {
         var output = Collect(job, progress);
-        return Write(output, job, outputFolder, progress);
+        return Write(output, job, outputFolder, progress) with { Problem = output.Problem };
     }
 
     /// <summary>Runs every stage and gathers the files and figures, without writing anything.</summary>
@@ -43,7 +46,63 @@ public static class BuildRunner
 
         var targetStage = TargetStage.Run(job, HeightMapImage.Decode, progress);
         AddTarget(output, job, targetStage, progress);
+        AddModel(output, job, targetStage.Target, progress);
         return output;
+    }
+
+    /// <summary>Tessellation, fit, checks, unfolding, sheets and report. Stops after the fit, without
+    /// sheets, when the fit did not converge and the job does not accept that.</summary>
+    private static void AddModel(BuildOutput output, Job job, ITargetSurface target, ProgressReporter progress)
+    {
+        var tessellation = TessellationStage.Run(job, target, progress);
+        output.AddFigure("tessellation", "available", tessellation.Pattern is not null);
+        if (tessellation.Pattern is null)
+        {
+            output.AddFigure("tessellation", "note", tessellation.Unavailable!);
+            return;
+        }
+        var sheetSettings = SheetStage.SettingsFor(job);
+        var fit = FitStage.Run(job, tessellation.Pattern, target, progress);
+        ModelOutputs.AddFit(output, job, tessellation, fit);
+        var warnings = new List<string>();
+        if (!fit.Fit.Converged)
+        {
+            string why = $"the fit did not converge ({fit.Fit.StopReason}; largest constraint residual {fit.Fit.Residuals.MaxConstraintViolation:0.##E+0})";
+            if (!job.Fitting.AcceptUnconverged)
+            {
+                output.Problem = why + "; no sheets were written. Raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg, or pass --accept-unconverged";
+                return;
+            }
+            warnings.Add(why + "; outputs written because the job accepts an unconverged fit");
+        }
+
+        double strainLimit = sheetSettings.Material.StrainLimit;
+        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress);
+        ModelOutputs.AddChecks(output, job, checks, strainLimit);
+        if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
+        if (checks.Strain.FacetsOverLimit.Length > 0)
+            warnings.Add($"{checks.Strain.FacetsOverLimit.Length} facet(s) need more than the material's {strainLimit * 100:0.##} % strain to lie flat (largest {checks.Strain.MaxStrain * 100:0.###} %)");
+        if (checks.ShortEdgeCount > 0)
+            warnings.Add($"{checks.ShortEdgeCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestEdgeMm:0.##} mm)");
+        if (!checks.Path.ReachedNearFlat)
+            warnings.Add($"the rigid folding path did not reach the flat sheet ({checks.Path.StopTowardFlat})");
+
+        SheetStageResult? sheets = null;
+        if (job.Outputs.Svg || job.Outputs.Dxf || job.Outputs.Pdf || job.Outputs.Png)
+        {
+            sheets = SheetStage.Run(job, checks.Flat, progress);
+            ModelOutputs.AddSheets(output, job, sheets);
+            warnings.AddRange(sheets.Layout.Figures.Warnings);
+        }
+        for (int i = 0; i < warnings.Count; i++) output.AddFigure("warnings", $"warning[{i}]", warnings[i]);
+
+        if (job.Outputs.Report)
+        {
+            progress.Stage("report", "previews, report.html and summary.md");
+            var model = ReportAssembly.Build(job, target, tessellation, fit, checks, sheets, warnings);
+            foreach (var (name, bytes) in ReportFiles.Contents(model)) output.AddFile(name, bytes);
+            output.Terminal = TerminalSummary.Format(model);
+        }
     }
 
     private static void AddTarget(BuildOutput output, Job job, TargetStageResult stage, ProgressReporter progress)

@@ -13,8 +13,22 @@ public static class ReportFiles
     /// <summary>Writes every report file into <paramref name="folder"/> (created if missing) and returns their paths.</summary>
     public static string[] WriteAll(string folder, ReportModel model)
     {
-        model.Validate();
         Directory.CreateDirectory(folder);
+        var contents = Contents(model);
+        var paths = new string[contents.Length];
+        for (int i = 0; i < contents.Length; i++)
+        {
+            paths[i] = Path.Combine(folder, contents[i].Name);
+            WriteAtomically(paths[i], contents[i].Bytes);
+        }
+        return paths;
+    }
+
+    /// <summary>The report's files as (name, bytes), in the order of <see cref="Names"/>, for a caller
+    /// that writes them itself.</summary>
+    public static (string Name, byte[] Bytes)[] Contents(ReportModel model)
+    {
+        model.Validate();
         var preview = FoldedModelPreview.Render(model);
         byte[][] contents =
         [
@@ -25,13 +39,7 @@ public static class ReportFiles
             ParetoPlot.Render(model.ParetoFront).Png,
             ConvergencePlot.Render(model.Convergence).Png,
         ];
-        var paths = new string[Names.Length];
-        for (int i = 0; i < Names.Length; i++)
-        {
-            paths[i] = Path.Combine(folder, Names[i]);
-            WriteAtomically(paths[i], contents[i]);
-        }
-        return paths;
+        return Names.Select((n, i) => (n, contents[i])).ToArray();
     }
 
     /// <summary>Writes bytes to a temporary name beside <paramref name="path"/>, then renames it over the target.</summary>

@@ -1,0 +1,63 @@
+using Tessel.Core.Checks;
+using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.Jobs;
+using Tessel.Core.Tessellation;
+using Tessel.Core.Unfolding;
+
+namespace Tessel.Core.Pipeline;
+
+/// <summary>Everything that says whether the fitted pattern can be built, with its flat layout.</summary>
+public sealed record ChecksStageResult(
+    FlatPattern Flat,
+    RigidityResult Rigidity,
+    FoldingPathResult Path,
+    CollisionResult FittedCollisions,
+    IReadOnlyList<PathCollisionFrame> PathCollisions,
+    IReadOnlyList<FoldAngleRow> FoldAngles,
+    FlatStrainResult Strain,
+    int ShortEdgeCount,
+    double ShortestEdgeMm)
+{
+    /// <summary>Panel pairs that collide at the fitted state or at any kept state of the path.</summary>
+    public int CollisionCount => FittedCollisions.Count + PathCollisions.Sum(f => f.Collisions.Count);
+}
+
+/// <summary>Fourth and fifth stages: develop the fitted mesh to the plane, then prove it folds:
+/// degrees of freedom, rigid folding path, collisions, fold-angle table and flat-layout strain.</summary>
+public static class ChecksStage
+{
+    public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress)
+    {
+        progress.Stage("unfold", "developing the fitted pattern to the plane");
+        var flat = MeshUnfolder.Unfold(fitted, new AutoSolver());
+        double maxEdgeStrain = flat.EdgeStrain.Length == 0 ? 0 : flat.EdgeStrain.Max(Math.Abs);
+        progress.Step($"largest edge length error {maxEdgeStrain * 100:0.####} %");
+
+        progress.Stage("checks", "degrees of freedom");
+        var rigidity = RigidityAnalysis.DegreesOfFreedom(fitted);
+        progress.Step($"DOF {rigidity.DegreesOfFreedom} (rank {rigidity.Rank} of {rigidity.Unknowns}, gap {rigidity.GapRatio:0.##E+0}, {rigidity.Method})");
+
+        progress.Step("rigid folding path toward flat and further folded");
+        var path = RigidFoldingPath.Simulate(fitted);
+        progress.Step($"progress {path.LowestProgress:0.###} to {path.HighestProgress:0.###}, near-flat {(path.ReachedNearFlat ? "reached" : "not reached")}, drift {path.MaxBarStrain:0.##E+0}");
+
+        progress.Step("panel collisions");
+        var fittedCollisions = PanelCollisions.Find(fitted);
+        var pathCollisions = PanelCollisions.AlongPath(fitted, path);
+        var foldAngles = FoldAngleTable.Build(fitted, job.Fabrication.Scale);
+        var strain = FlatLayoutStrain.Measure(flat, strainLimit);
+
+        double minMm = job.Fitting.Bounds.MinEdgeLengthMm, shortest = double.PositiveInfinity;
+        int shortCount = 0;
+        for (int e = 0; e < fitted.EdgeCount; e++)
+        {
+            var a = fitted.Vertex(fitted.EdgeVertices[2 * e]);
+            var b = fitted.Vertex(fitted.EdgeVertices[2 * e + 1]);
+            double mm = (b - a).Length * 1000 / job.Fabrication.Scale;
+            shortest = Math.Min(shortest, mm);
+            if (mm < minMm) shortCount++;
+        }
+        progress.Step($"collisions {fittedCollisions.Count + pathCollisions.Sum(f => f.Collisions.Count)}, max flat strain {strain.MaxStrain * 100:0.####} % (limit {strainLimit * 100:0.##} %)");
+        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest);
+    }
+}

@@ -1,0 +1,71 @@
+using Tessel.Core.Geometry;
+using Tessel.Core.Jobs;
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation;
+using Tessel.Core.Tessellation.Miura;
+
+namespace Tessel.Core.Pipeline;
+
+/// <summary>The crease pattern a family generated on the target, or why there is none.</summary>
+/// <param name="Pattern">Draped initial state with the family's constraints; null when the family
+/// cannot be built by this version (see <paramref name="Unavailable"/>).</param>
+public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable);
+
+/// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
+public static class TessellationStage
+{
+    /// <exception cref="JobError">The family's parameters cannot make a pattern on this target.</exception>
+    public static TessellationStageResult Run(Job job, ITargetSurface target, ProgressReporter progress)
+    {
+        var spec = job.Tessellation;
+        progress.Stage("tessellation", $"generating the {spec.Family} pattern");
+        Units.TryMetresPer(job.Target.Units, out double metres);
+        try
+        {
+            switch (spec.Family)
+            {
+                case "miura":
+                    var p = new MiuraParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
+                        spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
+                        spec.OrientationDeg);
+                    var pattern = MiuraGenerator.Generate(target, p);
+                    progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
+                    return new TessellationStageResult(pattern, null);
+                default:
+                    string why = $"the {spec.Family} family is not built by this version yet; only the target was built (use family \"miura\" for a full build)";
+                    progress.Step(why);
+                    return new TessellationStageResult(null, why);
+            }
+        }
+        catch (ArgumentException e)
+        {
+            throw new JobError("tessellation." + FieldOf(e.ParamName), FirstLine(e.Message));
+        }
+    }
+
+    /// <summary>A fold depth of a quarter of the smaller cell half-size keeps the sheet well away from
+    /// folded shut at any acute sector angle (Miura: depth below L tan(gamma)).</summary>
+    private static double DefaultFoldDepth(Footprint fp, TessellationSpec spec, double metres)
+    {
+        double cx = spec.CellsX is int nx ? fp.Width / nx : (spec.CellSize ?? fp.Width / 8) * metres;
+        double cy = spec.CellsY is int ny ? fp.Depth / ny : (spec.CellSize ?? fp.Depth / 8) * metres;
+        return 0.25 * Math.Min(cx, cy) * Math.Tan(spec.SectorAngleDeg * Math.PI / 180) / 2;
+    }
+
+    private static string FieldOf(string? parameter) => parameter switch
+    {
+        "CellsX" => "cellsX",
+        "CellsY" => "cellsY",
+        "CellSize" => "cellSize",
+        "SectorAngleDeg" => "sectorAngleDeg",
+        "FoldDepth" => "foldDepth",
+        "OrientationDeg" => "orientationDeg",
+        _ => "family",
+    };
+
+    private static string FirstLine(string message)
+    {
+        int paren = message.IndexOf(" (Parameter '", StringComparison.Ordinal);
+        return paren >= 0 ? message[..paren] : message;
+    }
+}

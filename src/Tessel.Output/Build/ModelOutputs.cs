@@ -1,0 +1,218 @@
+using System.Globalization;
+using System.Text;
+using Tessel.Core.Geometry;
+using Tessel.Core.Jobs;
+using Tessel.Core.Pipeline;
+using Tessel.Core.Sheets;
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation;
+using Tessel.Core.Unfolding;
+using Tessel.Output.Report;
+using Tessel.Output.Sheets;
+using Tessel.Output.Writers;
+using FitPareto = Tessel.Core.Fitting.ParetoPoint;
+
+namespace Tessel.Output.Build;
+
+/// <summary>Turns the results of the model stages (fit, checks, sheets) into files and figures.</summary>
+public static class ModelOutputs
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static void AddFit(BuildOutput output, Job job, TessellationStageResult tessellation, FitStageResult stage)
+    {
+        var fit = stage.Fit;
+        var mesh = fit.Mesh;
+        output.AddFigure("tessellation", "family", mesh.Family);
+        output.AddFigure("tessellation", "vertices", (long)mesh.VertexCount);
+        output.AddFigure("tessellation", "facets", (long)mesh.FaceCount);
+        output.AddFigure("tessellation", "edges", (long)mesh.EdgeCount);
+        output.AddFigure("tessellation", "foldDepthM", tessellation.Pattern!.LayerOffset);
+        output.AddFigure("fit", "converged", fit.Converged);
+        output.AddFigure("fit", "stopReason", fit.StopReason);
+        output.AddFigure("fit", "epsilonDeg", fit.EpsilonDeg);
+        output.AddFigure("fit", "steps", (long)fit.History.Count);
+        output.AddFigure("fit", "seconds", fit.History.Count == 0 ? 0 : fit.History[^1].ElapsedSeconds);
+        output.AddFigure("fit", "objective", fit.Objective);
+        output.AddFigure("fit", "fairness", fit.Fairness);
+        output.AddFigure("fit", "shapeRmsM", fit.Shape.Rms);
+        output.AddFigure("fit", "shapeMaxM", fit.Shape.Max);
+        output.AddFigure("fit", "maxDevelopabilityRad", fit.Residuals.MaxDevelopability);
+        output.AddFigure("fit", "maxDevelopabilityExcessRad", fit.Residuals.MaxDevelopabilityExcess);
+        output.AddFigure("fit", "maxKawasakiRad", fit.Residuals.MaxKawasaki);
+        output.AddFigure("fit", "maxPlanarityScaled", fit.Residuals.MaxPlanarity);
+        output.AddFigure("fit", "maxBoundViolation", fit.Residuals.MaxBoundViolation);
+        output.AddFigure("fit", "linearSolver", fit.Solver.Method);
+        output.AddFigure("fit", "linearSolves", (long)fit.Solver.LinearSolves);
+        output.AddFigure("fit", "linearIterations", fit.Solver.LinearIterations);
+        output.AddFigure("fit", "unknowns", (long)fit.Solver.Unknowns);
+        output.AddFigure("fit", "normalMatrixNonZeros", (long)fit.Solver.NonZeros);
+        output.AddFigure("fit", "starts", (long)fit.Spread.Objectives.Length);
+        output.AddFigure("fit", "bestStart", (long)fit.Spread.BestStart);
+        output.AddFigure("fit", "startObjectiveRange", fit.Spread.Range);
+        if (stage.Front.Count > 0)
+        {
+            output.AddFigure("pareto", "points", (long)stage.Front.Count);
+            for (int i = 0; i < stage.Front.Count; i++)
+            {
+                var p = stage.Front[i];
+                output.AddFigure("pareto", $"epsilonDeg[{i}]", p.EpsilonDeg);
+                output.AddFigure("pareto", $"shapeRmsM[{i}]", p.ShapeRms);
+                output.AddFigure("pareto", $"converged[{i}]", p.Converged);
+            }
+            output.AddFile("pareto.csv", ParetoCsv(stage.Front));
+        }
+        if (job.Outputs.Obj)
+            output.AddFile("folded.obj", FoldedObj(mesh, $"Tessel folded model for job {job.Name}: {mesh.Family}, metres, z up"));
+        if (job.Outputs.Stl)
+            output.AddFile("folded.stl", StlWriter.ToBytes(mesh, job.Fabrication.Scale));
+    }
+
+    public static void AddChecks(BuildOutput output, Job job, ChecksStageResult checks, double strainLimit)
+    {
+        var r = checks.Rigidity;
+        output.AddFigure("checks", "degreesOfFreedom", (long)r.DegreesOfFreedom);
+        output.AddFigure("checks", "rank", (long)r.Rank);
+        output.AddFigure("checks", "rankTolerance", r.RankTolerance);
+        output.AddFigure("checks", "rankGapRatio", r.GapRatio);
+        output.AddFigure("checks", "rankMethod", r.Method);
+        var p = checks.Path;
+        output.AddFigure("checks", "pathReachedNearFlat", p.ReachedNearFlat);
+        output.AddFigure("checks", "pathLowestProgress", p.LowestProgress);
+        output.AddFigure("checks", "pathHighestProgress", p.HighestProgress);
+        output.AddFigure("checks", "pathMaxBarStrain", p.MaxBarStrain);
+        output.AddFigure("checks", "pathMaxPlanarity", p.MaxPlanarityResidual);
+        output.AddFigure("checks", "pathStopTowardFlat", p.StopTowardFlat);
+        output.AddFigure("checks", "pathStopTowardFolded", p.StopTowardFolded);
+        output.AddFigure("checks", "pathKeyframes", (long)p.Keyframes.Count);
+        output.AddFigure("checks", "collisions", (long)checks.CollisionCount);
+        output.AddFigure("checks", "flatMaxEdgeStrain", checks.Flat.EdgeStrain.Length == 0 ? 0 : checks.Flat.EdgeStrain.Max(Math.Abs));
+        output.AddFigure("checks", "flatMaxFacetStrain", checks.Strain.MaxStrain);
+        output.AddFigure("checks", "strainLimit", strainLimit);
+        output.AddFigure("checks", "facetsOverStrainLimit", (long)checks.Strain.FacetsOverLimit.Length);
+        output.AddFigure("checks", "shortestEdgeMm", checks.ShortestEdgeMm);
+        output.AddFigure("checks", "edgesBelowMinimumLength", (long)checks.ShortEdgeCount);
+        output.AddFile("fold-angles.csv", Encoding.UTF8.GetBytes(Core.Checks.FoldAngleTable.ToCsv(checks.FoldAngles)));
+        if (job.Outputs.Svg)
+            output.AddFile("crease-pattern.svg", CreasePatternSvg(checks.Flat, job));
+    }
+
+    public static void AddSheets(BuildOutput output, Job job, SheetStageResult sheets)
+    {
+        var fig = sheets.Layout.Figures;
+        output.AddFigure("sheets", "material", sheets.Settings.Material.Name);
+        output.AddFigure("sheets", "sheetSize", $"{sheets.Settings.Sheet.Name} {sheets.Settings.Sheet.WidthMm.ToString("0.#", Inv)} x {sheets.Settings.Sheet.HeightMm.ToString("0.#", Inv)} mm");
+        output.AddFigure("sheets", "sheets", (long)fig.SheetCount);
+        output.AddFigure("sheets", "parts", (long)fig.PartCount);
+        output.AddFigure("sheets", "seams", (long)sheets.Layout.Seams.Length);
+        for (int i = 0; i < fig.Utilisation.Length; i++) output.AddFigure("sheets", $"utilisation[{i + 1}]", fig.Utilisation[i]);
+        output.AddFigure("sheets", "totalCutLengthMm", fig.TotalCutLengthMm);
+        output.AddFigure("sheets", "outlineCutLengthMm", fig.OutlineCutLengthMm);
+        output.AddFigure("sheets", "scoreLengthMm", fig.ScoreLengthMm);
+        output.AddFigure("sheets", "backScoreLengthMm", fig.BackScoreLengthMm);
+        output.AddFigure("sheets", "perforationCutLengthMm", fig.PerforationCutLengthMm);
+        output.AddFigure("sheets", "travelLengthMm", fig.TravelLengthMm);
+        output.AddFigure("sheets", "estimatedLaserSeconds", fig.EstimatedLaserSeconds);
+        output.AddFigure("sheets", "narrowFacets", (long)fig.NarrowFacetCount);
+        output.AddFigure("sheets", "shortPerforations", (long)fig.ShortPerforationCount);
+        output.AddFigure("sheets", "overlappingTabs", (long)fig.OverlappingTabCount);
+        for (int i = 0; i < fig.Warnings.Length; i++) output.AddFigure("sheets", $"warning[{i}]", fig.Warnings[i]);
+
+        foreach (string format in SheetWriterFormats.Names)
+        {
+            bool wanted = format switch { "svg" => job.Outputs.Svg, "dxf" => job.Outputs.Dxf, "pdf" => job.Outputs.Pdf, _ => job.Outputs.Png };
+            if (!wanted) continue;
+            var writer = SheetWriterFormats.Create(format);
+            if (writer.OneFilePerSheet)
+            {
+                if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], sheets.Styles));
+                foreach (var sheet in sheets.Sheets)
+                    output.AddFile($"sheets/{SheetFileName(sheet)}{writer.FileExtension}", Bytes(writer, [sheet], sheets.Styles));
+            }
+            else
+            {
+                var pdf = new PdfSheetWriter { Title = $"Tessel sheets: {job.Name}" };
+                output.AddFile("sheets/sheets.pdf", Bytes(pdf, [sheets.Cover, .. sheets.Sheets], sheets.Styles));
+            }
+        }
+    }
+
+    /// <summary>"sheet-01" for a front job, "sheet-01-back" for the mirrored back job.</summary>
+    public static string SheetFileName(Sheet sheet) =>
+        $"sheet-{sheet.Number.ToString("00", Inv)}{(sheet.Side == "front" ? "" : "-" + sheet.Side)}";
+
+    private static byte[] Bytes(ISheetWriter writer, IReadOnlyList<Sheet> sheets, LineStyleTable styles)
+    {
+        using var ms = new MemoryStream();
+        writer.Write(sheets, styles, ms);
+        return ms.ToArray();
+    }
+
+    private static byte[] ParetoCsv(IReadOnlyList<FitPareto> front)
+    {
+        var sb = new StringBuilder("epsilon_deg,shape_rms_m,shape_max_m,objective,max_developability_rad,max_kawasaki_rad,max_planarity,converged\n");
+        foreach (var p in front)
+            sb.Append(string.Join(",", new[] { p.EpsilonDeg, p.ShapeRms, p.ShapeMax, p.Objective, p.MaxDevelopability, p.MaxKawasaki, p.MaxPlanarity }
+                .Select(v => v.ToString("R", Inv)))).Append(',').Append(p.Converged ? "true" : "false").Append('\n');
+        return Encoding.UTF8.GetBytes(sb.ToString());
+    }
+
+    /// <summary>OBJ with the panels as faces in one group and the creases as polylines (l) in a group per role.</summary>
+    private static byte[] FoldedObj(CreaseMesh mesh, string comment)
+    {
+        var faces = ObjWriter.Write(mesh.Positions, mesh.Faces, [new ObjWriter.Group("panels", Enumerable.Range(0, mesh.FaceCount).ToArray())], comment);
+        var sb = new StringBuilder(Encoding.UTF8.GetString(faces));
+        foreach (var role in new[] { CreaseRole.Mountain, CreaseRole.Valley, CreaseRole.Flat, CreaseRole.Boundary })
+        {
+            var edges = Enumerable.Range(0, mesh.EdgeCount).Where(e => mesh.EdgeRoles[e] == role).ToArray();
+            if (edges.Length == 0) continue;
+            sb.Append("g ").Append(role.ToString().ToLowerInvariant()).Append('\n');
+            foreach (int e in edges)
+                sb.Append("l ").Append(mesh.EdgeVertices[2 * e] + 1).Append(' ').Append(mesh.EdgeVertices[2 * e + 1] + 1).Append('\n');
+        }
+        return Encoding.UTF8.GetBytes(sb.ToString());
+    }
+
+    /// <summary>The whole flat crease pattern at model scale on one true-size sheet with a 10 mm border:
+    /// boundary as cut, mountain and valley in their own layers.</summary>
+    private static byte[] CreasePatternSvg(FlatPattern flat, Job job)
+    {
+        double k = 1000.0 / job.Fabrication.Scale, border = 10;
+        double minX = double.MaxValue, maxX = double.MinValue, minY = double.MaxValue, maxY = double.MinValue;
+        for (int v = 0; v < flat.VertexCount; v++)
+        {
+            var p = flat.Vertex(v);
+            minX = Math.Min(minX, p.X); maxX = Math.Max(maxX, p.X); minY = Math.Min(minY, p.Y); maxY = Math.Max(maxY, p.Y);
+        }
+        Vec2 At(int v) { var p = flat.Vertex(v); return new Vec2((p.X - minX) * k + border, (maxY - p.Y) * k + border); }
+        var lines = new List<SheetLine>();
+        for (int e = 0; e < flat.EdgeCount; e++)
+        {
+            var cls = flat.Role(e) switch
+            {
+                CreaseRole.Mountain => LineClass.Mountain,
+                CreaseRole.Valley => LineClass.Valley,
+                CreaseRole.Boundary => LineClass.CutOutline,
+                _ => (LineClass?)null,
+            };
+            if (cls is null) continue;
+            var (a, b) = flat.Edge(e);
+            lines.Add(new SheetLine(cls.Value, [At(a), At(b)]));
+        }
+        var sheet = new Sheet(1, (maxX - minX) * k + 2 * border, (maxY - minY) * k + 2 * border, lines.ToArray());
+        return Bytes(new SvgSheetWriter(), [sheet], SheetStage.StylesFor(job));
+    }
+
+    /// <summary>Signed distance of each vertex from the surface its layer belongs on (metres).</summary>
+    public static double[] VertexDeviations(CreaseMesh mesh, ITargetSurface target, double layerOffset)
+    {
+        var d = new double[mesh.VertexCount];
+        for (int v = 0; v < d.Length; v++)
+        {
+            if (mesh.Layers[v] == VertexLayer.Free) continue;
+            double sd = target.ClosestPoint(mesh.Vertex(v)).SignedDistance;
+            d[v] = mesh.Layers[v] == VertexLayer.Top ? sd : sd + layerOffset;
+        }
+        return d;
+    }
+}

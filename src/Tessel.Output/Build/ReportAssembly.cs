@@ -1,0 +1,86 @@
+using System.Globalization;
+using Tessel.Core.Jobs;
+using Tessel.Core.Pipeline;
+using Tessel.Core.Sheets;
+using Tessel.Core.Targets;
+using Tessel.Output.Report;
+
+namespace Tessel.Output.Build;
+
+/// <summary>Gathers the stage results into the report's plain-data model.</summary>
+public static class ReportAssembly
+{
+    private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
+
+    public static ReportModel Build(Job job, ITargetSurface target, TessellationStageResult tessellation,
+        FitStageResult fit, ChecksStageResult checks, SheetStageResult? sheets, IReadOnlyList<string> warnings)
+    {
+        var mesh = fit.Fit.Mesh;
+        var deviation = ModelOutputs.VertexDeviations(mesh, target, tessellation.Pattern!.LayerOffset);
+        var model = ReportModel.FromMesh(job.Name, job.Fabrication.Scale, mesh, checks.Flat.Positions, deviation);
+        var f = fit.Fit;
+        var rows = new List<SummaryRow>
+        {
+            new("Target", target.Description),
+            new("Family", $"{mesh.Family}: {mesh.VertexCount} vertices, {mesh.FaceCount} facets"),
+            new("Scale", $"1:{job.Fabrication.Scale.ToString("0.###", Inv)}"),
+            new("Fit", $"{(f.Converged ? "converged" : "NOT converged")} ({f.StopReason}), {f.History.Count} steps"),
+            new("Shape error RMS / max", $"{Mm(f.Shape.Rms)} / {Mm(f.Shape.Max)} mm full scale"),
+            new("Developability residual", $"{f.Residuals.MaxDevelopability.ToString("0.##E+0", Inv)} rad (epsilon {f.EpsilonDeg.ToString("0.###", Inv)} deg)"),
+            new("Kawasaki residual", $"{f.Residuals.MaxKawasaki.ToString("0.##E+0", Inv)} rad"),
+            new("Planarity residual", f.Residuals.MaxPlanarity.ToString("0.##E+0", Inv)),
+            new("Degrees of freedom", $"{checks.Rigidity.DegreesOfFreedom} (rank gap {checks.Rigidity.GapRatio.ToString("0.##E+0", Inv)})"),
+            new("Folding path", $"{(checks.Path.ReachedNearFlat ? "reaches near-flat" : "does not reach near-flat")}, drift {checks.Path.MaxBarStrain.ToString("0.##E+0", Inv)}"),
+            new("Panel collisions", checks.CollisionCount.ToString(Inv)),
+            new("Flat-layout strain", $"{(checks.Strain.MaxStrain * 100).ToString("0.####", Inv)} % (limit {(checks.Strain.StrainLimit * 100).ToString("0.##", Inv)} %)"),
+        };
+        if (sheets is not null)
+        {
+            var sf = sheets.Layout.Figures;
+            rows.Add(new("Sheets", $"{sf.SheetCount} x {sheets.Settings.Sheet.Name}, {sf.PartCount} parts, {sheets.Layout.Seams.Length} seams"));
+            rows.Add(new("Cut / score / perforation", $"{M(sf.TotalCutLengthMm)} / {M(sf.ScoreLengthMm + sf.BackScoreLengthMm)} / {M(sf.PerforationCutLengthMm)} m"));
+            rows.Add(new("Laser time (estimate)", $"{(sf.EstimatedLaserSeconds / 60).ToString("0.#", Inv)} min"));
+        }
+        var front = fit.Front.Select(p => new ParetoPoint(p.EpsilonDeg, p.ShapeRms, Math.Abs(p.EpsilonDeg - f.EpsilonDeg) < 1e-12)).ToArray();
+        var keyframes = checks.Path.Keyframes
+            .Select(k => new FoldKeyframe(k.Progress, AlignToFitted(k.Positions, mesh.Positions))).ToArray();
+        return model with
+        {
+            Description = job.Description ?? "",
+            ParetoFront = front,
+            Convergence = f.History.Select(h => new ConvergenceStep(h.Index, h.Objective,
+                Math.Max(Math.Max(h.MaxPlanarity, h.MaxKawasaki), Math.Max(h.MaxDevelopabilityExcess, h.MaxBoundViolation)))).ToArray(),
+            Keyframes = keyframes,
+            Summary = rows.ToArray(),
+            Warnings = warnings.ToArray(),
+            Cautions = SheetAnnotations.CautionParagraphs.ToArray(),
+            Sheets = sheets?.Sheets.ToArray() ?? [],
+        };
+    }
+
+    private static string Mm(double metres) => (metres * 1000).ToString("0.##", Inv);
+    private static string M(double mm) => (mm / 1000).ToString("0.##", Inv);
+
+    /// <summary>Keyframes come in the frame of the folding simulation's reference panel; move each so its
+    /// centroid matches the fitted model's, so the viewer's camera stays on the model.</summary>
+    private static double[] AlignToFitted(double[] positions, double[] fitted)
+    {
+        int n = positions.Length / 3;
+        double dx = 0, dy = 0, dz = 0;
+        for (int v = 0; v < n; v++)
+        {
+            dx += fitted[3 * v] - positions[3 * v];
+            dy += fitted[3 * v + 1] - positions[3 * v + 1];
+            dz += fitted[3 * v + 2] - positions[3 * v + 2];
+        }
+        dx /= n; dy /= n; dz /= n;
+        var moved = new double[positions.Length];
+        for (int v = 0; v < n; v++)
+        {
+            moved[3 * v] = positions[3 * v] + dx;
+            moved[3 * v + 1] = positions[3 * v + 1] + dy;
+            moved[3 * v + 2] = positions[3 * v + 2] + dz;
+        }
+        return moved;
+    }
+}
