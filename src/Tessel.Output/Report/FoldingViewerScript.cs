@@ -75,15 +75,27 @@ internal static class FoldingViewerScript
       for (var k = 0; k < 3; k++) { lo[k] = Math.min(lo[k], x[i + k]); hi[k] = Math.max(hi[k], x[i + k]); }
     return [(lo[0] + hi[0]) / 2, (lo[1] + hi[1]) / 2, (lo[2] + hi[2]) / 2];
   }
-  // One zoom for the whole path, so the model does not swell or shrink while it folds.
-  var radius = 1e-9;
-  frames.forEach(function (f) {
-    var c = centre(f.x);
-    for (var i = 0; i < f.x.length; i += 3) {
-      var dx = f.x[i] - c[0], dy = f.x[i + 1] - c[1], dz = f.x[i + 2] - c[2];
-      radius = Math.max(radius, Math.sqrt(dx * dx + dy * dy + dz * dz));
-    }
-  });
+  // One zoom for the whole path, so the model does not swell or shrink while it folds: the largest
+  // that fits every state into the canvas from the opening view (wheel zoom adjusts it later).
+  function viewAxes() {
+    var toward = [Math.cos(pitch) * Math.cos(yaw), Math.cos(pitch) * Math.sin(yaw), Math.sin(pitch)];
+    var right = [-Math.sin(yaw), Math.cos(yaw), 0];
+    var up = [toward[1] * right[2] - toward[2] * right[1], toward[2] * right[0] - toward[0] * right[2], toward[0] * right[1] - toward[1] * right[0]];
+    return { toward: toward, right: right, up: up };
+  }
+  var baseScale = Infinity;
+  (function () {
+    var v = viewAxes();
+    frames.forEach(function (f) {
+      var c = centre(f.x), mx = 1e-12, my = 1e-12;
+      for (var i = 0; i < f.x.length; i += 3) {
+        var dx = f.x[i] - c[0], dy = f.x[i + 1] - c[1], dz = f.x[i + 2] - c[2];
+        mx = Math.max(mx, Math.abs(dx * v.right[0] + dy * v.right[1] + dz * v.right[2]));
+        my = Math.max(my, Math.abs(dx * v.up[0] + dy * v.up[1] + dz * v.up[2]));
+      }
+      baseScale = Math.min(baseScale, 0.42 * W / mx, 0.44 * H / my);
+    });
+  })();
 
   function positionsAt(t) {
     if (frames.length === 1 || t <= frames[0].p) return frames[0].x;
@@ -112,13 +124,11 @@ internal static class FoldingViewerScript
     var t = slider.value / 1000;
     readout.textContent = Math.round(t * 100) + ' %';
     var x = positionsAt(t), c = centre(x);
-    var toward = [Math.cos(pitch) * Math.cos(yaw), Math.cos(pitch) * Math.sin(yaw), Math.sin(pitch)];
-    var right = [-Math.sin(yaw), Math.cos(yaw), 0];
-    var up = [toward[1] * right[2] - toward[2] * right[1], toward[2] * right[0] - toward[0] * right[2], toward[0] * right[1] - toward[1] * right[0]];
+    var axes = viewAxes(), toward = axes.toward, right = axes.right, up = axes.up;
     var light = [0, 1, 2].map(function (k) { return 0.45 * toward[k] + 0.6 * up[k] - 0.45 * right[k]; });
     var ll = Math.sqrt(light[0] * light[0] + light[1] * light[1] + light[2] * light[2]);
     light = light.map(function (v) { return v / ll; });
-    var scale = zoom * 0.47 * Math.min(W, H) / radius;
+    var scale = zoom * baseScale;
     var n = x.length / 3, sx = new Float64Array(n), sy = new Float64Array(n), depth = new Float64Array(n);
     for (var i = 0; i < n; i++) {
       var px = x[3 * i] - c[0], py = x[3 * i + 1] - c[1], pz = x[3 * i + 2] - c[2];

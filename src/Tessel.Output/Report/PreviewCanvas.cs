@@ -40,6 +40,11 @@ internal sealed class PreviewCanvas : IDisposable
     /// <summary>Draws one line of text with its baseline at y.</summary>
     public void Text(string text, float x, float y, float size, SKColor colour, SKTextAlign align = SKTextAlign.Left)
     {
+        if (!HasFont)
+        {
+            StrokeLettering.Draw(Canvas, text, x, y, size, colour, align);
+            return;
+        }
         using var font = new SKFont(Face, size) { Edging = SKFontEdging.Antialias, Subpixel = false };
         using var paint = Fill(colour);
         Canvas.DrawText(text, x, y, align, font, paint);
@@ -58,6 +63,7 @@ internal sealed class PreviewCanvas : IDisposable
     /// <summary>Advance width of a text in pixels.</summary>
     public static float MeasureText(string text, float size)
     {
+        if (!HasFont) return StrokeLettering.Measure(text, size);
         using var font = new SKFont(Face, size);
         return font.MeasureText(text);
     }

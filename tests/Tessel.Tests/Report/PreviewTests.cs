@@ -138,8 +138,15 @@ public class PreviewTests
     }
 
     [Fact]
-    public void ALabelFontIsAvailable()
+    public void TitlesAreInkedWithATypefaceOrTheStrokeFallback()
     {
-        Assert.True(PreviewCanvas.HasFont, "no typeface with glyphs: preview labels would be blank");
+        // The trade-off plot's title has its baseline at y = 28 from x = 84; whichever way text is drawn
+        // on this machine, the band above that baseline must hold ink.
+        using var bmp = PreviewPixels.Decode(ParetoPlot.Render([]).Png);
+        int inked = 0;
+        for (int y = 14; y <= 30; y++)
+            for (int x = 84; x < 300; x++)
+                if (PreviewPixels.Distance(bmp.GetPixel(x, y), PreviewCanvas.Background) > 80) inked++;
+        Assert.True(inked > 100, $"{inked} inked pixels in the title band (typeface found: {PreviewCanvas.HasFont})");
     }
 }
