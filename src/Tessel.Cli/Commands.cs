@@ -55,7 +55,7 @@ internal static class Commands
             var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
             var output = BuildRunner.Collect(loaded, progress);
             var result = BuildRunner.Write(output, loaded, folder, progress);
-            if (output.Terminal is not null && !r.GetValue(quiet)) stdout.Write(output.Terminal);
+            if (output.Terminal is not null && !r.GetValue(quiet)) stdout.WriteLine(output.Terminal.TrimEnd('\n'));
             if (output.Problem is not null)
             {
                 stderr.WriteLine($"tessel: {output.Problem}");

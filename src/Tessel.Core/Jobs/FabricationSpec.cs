@@ -35,5 +35,6 @@ public sealed record SheetSpec(string? Name, double WidthMm, double HeightMm);
 /// <summary>Glue tab width (a handling size, not scaled) and end taper.</summary>
 public sealed record TabSpec(double WidthMm, double TaperDeg);
 
-/// <summary>How one line class is drawn and cut: colour (#rrggbb), pen number and cutter passes.</summary>
-public sealed record LayerStyle(string Colour, int Pen, int Passes);
+/// <summary>How one line class is drawn and sent to the cutter: colour (#rrggbb), pen number (also the
+/// DXF colour index) and operation (cut, score, mark or draw-only).</summary>
+public sealed record LayerStyle(string Colour, int Pen, string Operation);

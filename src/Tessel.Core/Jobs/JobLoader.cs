@@ -315,15 +315,15 @@ public static partial class JobLoader
             var l = lr.Object(cls);
             // A line class added to the sheet model later gets a plain black layer until it is given a
             // default here (and in the schema: a test checks that).
-            var d = DefaultLayers.TryGetValue(cls, out var known) ? known : new LayerStyle("#000000", 8 + layers.Count, 1);
+            var d = DefaultLayers.TryGetValue(cls, out var known) ? known : new LayerStyle("#000000", 8 + layers.Count, "draw-only");
             string colour = l.String("colour") ?? d.Colour;
             int pen = l.Integer("pen") ?? d.Pen;
-            int passes = l.Integer("passes") ?? d.Passes;
+            string operation = l.String("operation") ?? d.Operation;
             l.RejectUnknown();
             if (!HexColour().IsMatch(colour)) throw new JobError(l.PathOf("colour"), $"must be a colour written #rrggbb (got \"{colour}\")");
             if (pen < 1 || pen > 255) throw new JobError(l.PathOf("pen"), $"must be a pen number from 1 to 255 (got {pen})");
-            if (passes < 1 || passes > 20) throw new JobError(l.PathOf("passes"), $"must be a number of passes from 1 to 20 (got {passes})");
-            layers[cls] = new LayerStyle(colour.ToLowerInvariant(), pen, passes);
+            CheckChoice(l.PathOf("operation"), operation, Operations);
+            layers[cls] = new LayerStyle(colour.ToLowerInvariant(), pen, operation);
         }
         lr.RejectUnknown();
         r.RejectUnknown();
@@ -360,16 +360,24 @@ public static partial class JobLoader
             margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers);
     }
 
-    /// <summary>Layer styles used when the job does not override them: our own palette.</summary>
-    public static readonly IReadOnlyDictionary<string, LayerStyle> DefaultLayers = new Dictionary<string, LayerStyle>
+    /// <summary>Cutter operations a layer can be mapped to (names of <see cref="Sheets.LineOperation"/>).</summary>
+    public static readonly IReadOnlyList<string> Operations = ["cut", "score", "mark", "draw-only"];
+
+    /// <summary>Layer styles used when the job does not override them: the sheet stage's default table.</summary>
+    public static readonly IReadOnlyDictionary<string, LayerStyle> DefaultLayers = Enum.GetValues<Sheets.LineClass>()
+        .ToDictionary(c => char.ToLowerInvariant(c.ToString()[0]) + c.ToString()[1..], c =>
+        {
+            var style = Sheets.LineStyleTable.Default[c];
+            return new LayerStyle(style.ColourHex.ToLowerInvariant(), style.DxfColourIndex, OperationName(style.Operation));
+        });
+
+    /// <summary>Job-file name of a cutter operation.</summary>
+    public static string OperationName(Sheets.LineOperation operation) => operation switch
     {
-        ["cutInner"] = new("#3b1f6e", 1, 1),
-        ["cutOutline"] = new("#14213d", 2, 1),
-        ["mountain"] = new("#b5442c", 3, 1),
-        ["valley"] = new("#2b7a78", 4, 1),
-        ["tabFold"] = new("#8a7d2b", 5, 1),
-        ["label"] = new("#6c6c6c", 6, 1),
-        ["annotation"] = new("#a3a3a3", 7, 1),
+        Sheets.LineOperation.Cut => "cut",
+        Sheets.LineOperation.Score => "score",
+        Sheets.LineOperation.Mark => "mark",
+        _ => "draw-only",
     };
 
     [GeneratedRegex("^#[0-9A-Fa-f]{6}$")]

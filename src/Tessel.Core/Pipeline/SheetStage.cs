@@ -47,7 +47,18 @@ public static class SheetStage
         {
             string key = char.ToLowerInvariant(cls.ToString()[0]) + cls.ToString()[1..];
             if (job.Fabrication.Layers.TryGetValue(key, out var layer))
-                table = table.With(cls, table[cls] with { ColourHex = layer.Colour, DxfColourIndex = layer.Pen });
+                table = table.With(cls, table[cls] with
+                {
+                    ColourHex = layer.Colour.ToUpperInvariant(),
+                    DxfColourIndex = layer.Pen,
+                    Operation = layer.Operation switch
+                    {
+                        "cut" => LineOperation.Cut,
+                        "score" => LineOperation.Score,
+                        "mark" => LineOperation.Mark,
+                        _ => LineOperation.DrawOnly,
+                    },
+                });
         }
         return table;
     }

@@ -170,7 +170,7 @@ public class JobLoaderTests
         var inSchema = new SortedSet<string>(StringComparer.Ordinal);
         Walk(doc.RootElement, "", inSchema);
         Assert.Equal(known.ToArray(), inSchema.ToArray());
-        Assert.Contains("fabrication.layers.tabFold.passes", known);
+        Assert.Contains("fabrication.layers.tabFold.operation", known);
         Assert.Contains("target.footprint.corners", known);
     }
 
