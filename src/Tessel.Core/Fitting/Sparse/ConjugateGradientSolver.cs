@@ -8,6 +8,7 @@ namespace Tessel.Core.Fitting.Sparse;
 /// retried on A + shift * diag(A), the shift growing tenfold from 1e-3. Convergence is judged on the
 /// true residual |b - A x| / |b|: when the recurred residual says "done" the true one is recomputed and
 /// CG restarts from it if it is not. All loops are sequential, so results are bit-reproducible.
+/// An instance keeps scratch and caches: use one per thread.
 /// </remarks>
 public sealed class ConjugateGradientSolver : ISpdSolver
 {
@@ -15,7 +16,7 @@ public sealed class ConjugateGradientSolver : ISpdSolver
     public const string MethodName = "pcg-ic0";
 
     private IncompleteCholesky? preconditioner;
-    private double[] r = [], z = [], p = [], q = [];
+    private double[] r = [], z = [], p = [], q = [], jacobi = [];
 
     /// <summary>Stop when |b - A x| &lt;= RelativeTolerance * |b|.</summary>
     public double RelativeTolerance { get; set; } = 1e-8;
@@ -53,7 +54,7 @@ public sealed class ConjugateGradientSolver : ISpdSolver
         while (!converged && !brokeDown && iterations < MaxIterations)
         {
             // (Re)start from the residual in r.
-            Precondition(useJacobi, a, r, z);
+            Precondition(useJacobi, r, z);
             z.CopyTo(p, 0);
             double rz = Dot(r, z);
             while (iterations < MaxIterations)
@@ -71,7 +72,7 @@ public sealed class ConjugateGradientSolver : ISpdSolver
                 iterations++;
                 rNorm = Math.Sqrt(Dot(r, r));
                 if (rNorm <= target) break;
-                Precondition(useJacobi, a, r, z);
+                Precondition(useJacobi, r, z);
                 double rzNew = Dot(r, z);
                 double beta = rzNew / rz;
                 rz = rzNew;
@@ -93,18 +94,24 @@ public sealed class ConjugateGradientSolver : ISpdSolver
         {
             if (preconditioner.TryFactorize(a, shift, out _)) { LastShift = shift; return true; }
             shift = shift == 0 ? 1e-3 : shift * 10;
-            if (shift > MaxShift) { LastShift = -1; return false; }
+            if (shift > MaxShift)
+            {
+                LastShift = -1;
+                if (jacobi.Length != a.Rows) jacobi = new double[a.Rows];
+                for (int i = 0; i < a.Rows; i++)
+                {
+                    double d = a.At(i, i);
+                    jacobi[i] = d > 0 ? 1 / d : 1;
+                }
+                return false;
+            }
         }
     }
 
-    private void Precondition(bool useJacobi, CsrMatrix a, ReadOnlySpan<double> residual, Span<double> result)
+    private void Precondition(bool useJacobi, ReadOnlySpan<double> residual, Span<double> result)
     {
         if (!useJacobi) { preconditioner!.Apply(residual, result); return; }
-        for (int i = 0; i < a.Rows; i++)
-        {
-            double d = a.At(i, i);
-            result[i] = d > 0 ? residual[i] / d : residual[i];
-        }
+        for (int i = 0; i < residual.Length; i++) result[i] = residual[i] * jacobi[i];
     }
 
     private static void TrueResidual(CsrMatrix a, ReadOnlySpan<double> b, ReadOnlySpan<double> x, Span<double> residual)

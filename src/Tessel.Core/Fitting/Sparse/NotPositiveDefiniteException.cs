@@ -9,6 +9,7 @@ public sealed class NotPositiveDefiniteException : ArithmeticException
     /// <summary>The failed pivot value d = A(i,i) - sum L(i,k)^2 (&lt;= tolerance * A(i,i)).</summary>
     public double Pivot { get; }
 
+    /// <summary>Failure at original row <paramref name="row"/> with pivot value <paramref name="pivot"/>.</summary>
     public NotPositiveDefiniteException(int row, double pivot)
         : base($"matrix is not positive definite: pivot {pivot:G6} at row {row}")
     {

@@ -56,6 +56,23 @@ public class ConjugateGradientSolverTests
     }
 
     [Fact]
+    public void FallsBackToJacobiWhenNoShiftIsAllowed()
+    {
+        // The Kershaw-type matrix above with MaxShift = 0: IC(0) cannot be repaired, so the diagonal
+        // preconditioner takes over, and CG still reaches the oracle's solution (MathNet dense Cholesky).
+        var a = CsrMatrix.FromTriplets(4, 4,
+            [(0, 0, 3.0), (1, 1, 3.0), (2, 2, 3.0), (3, 3, 3.0),
+             (0, 1, -2.0), (1, 0, -2.0), (1, 2, -2.0), (2, 1, -2.0), (2, 3, -2.0), (3, 2, -2.0), (0, 3, 2.0), (3, 0, 2.0)]);
+        var b = new[] { 1.0, -2.0, 0.5, 3.0 };
+        var x = new double[4];
+        var solver = new ConjugateGradientSolver { MaxShift = 0, RelativeTolerance = 1e-14 };
+        var stats = solver.Solve(a, b, x);
+        Assert.Equal(-1, solver.LastShift);
+        Assert.True(stats.Converged, $"{stats}");
+        Assert.True(SparseTestSystems.RelativeDifference(x, SparseTestSystems.OracleSolve(a, b)) <= 1e-10);
+    }
+
+    [Fact]
     public void NegativeDefiniteInputIsReportedNotSolved()
     {
         // -(L + I) is negative definite: no CG step exists, so Converged must be false.

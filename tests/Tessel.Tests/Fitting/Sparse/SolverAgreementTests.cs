@@ -57,6 +57,24 @@ public class SolverAgreementTests
 
     [Theory]
     [MemberData(nameof(Solvers))]
+    public void AgreesOnADisconnectedShuffledMatrix(string solver)
+    {
+        // Two grid Laplacians of different shapes and five uncoupled unknowns, shuffled together: the
+        // orderings and the elimination forest must cope with several components and roots.
+        var first = SparseTestSystems.GridLaplacian(9, 5, 0.2);
+        var second = SparseTestSystems.GridLaplacian(4, 11, 0.05);
+        int n = first.Rows + second.Rows + 5;
+        var t = new List<(int, int, double)>();
+        foreach (var (m, offset) in new[] { (first, 0), (second, first.Rows) })
+            for (int r = 0; r < m.Rows; r++)
+                for (int k = m.RowStart[r]; k < m.RowStart[r + 1]; k++) t.Add((offset + r, offset + m.ColumnIndices[k], m.Values[k]));
+        for (int i = first.Rows + second.Rows; i < n; i++) t.Add((i, i, 1.5 + i % 3));
+        var a = SparseTestSystems.Permute(CsrMatrix.FromTriplets(n, n, t), SparseTestSystems.RandomPermutation(n, 17));
+        AssertAgrees(solver, a, SparseTestSystems.RandomVector(n, 18));
+    }
+
+    [Theory]
+    [MemberData(nameof(Solvers))]
     public void GivesBitIdenticalResultsOnRepeatedSolves(string solver)
     {
         var (a, b) = SparseTestSystems.GaussNewtonSystem(7, 7, 1e-2);
