@@ -13,12 +13,13 @@ public static class FitBenchmark
     {
         int[] sizes = args.Length > 0 ? args[0].Split(',').Select(int.Parse).ToArray() : [10, 20, 40, 80, 100];
         bool verbose = args.Contains("-v");
+        string solverName = args.FirstOrDefault(a => a.StartsWith("solver=")) is string sn ? sn[7..] : "supernodal";
         double mu = args.FirstOrDefault(a => a.StartsWith("mu=")) is string m ? double.Parse(m[3..], System.Globalization.CultureInfo.InvariantCulture) : new FitSettings().InitialPenalty;
         foreach (int n in sizes)
         {
             var (pattern, target) = Saddle(n);
             var sw = Stopwatch.StartNew();
-            var r = EpsilonConstraintFitter.Fit(pattern, target, new FitSettings { StartPerturbation = 0, InitialPenalty = mu });
+            var r = EpsilonConstraintFitter.Fit(pattern, target, new FitSettings { StartPerturbation = 0, InitialPenalty = mu }, MakeSolver(solverName));
             sw.Stop();
             if (verbose)
                 foreach (var h in r.History)
@@ -26,6 +27,15 @@ public static class FitBenchmark
             Console.WriteLine($"{n}x{n}: {sw.Elapsed.TotalSeconds:F2} s, {r.Solver.LinearSolves} solves ({r.Solver.Method}, n={r.Solver.Unknowns}), converged {r.Converged} ({r.StopReason}), rms {r.Shape.Rms:E3} m max {r.Shape.Max:E3}, dev {r.Residuals.MaxDevelopability:E2} kaw {r.Residuals.MaxKawasaki:E2} plan {r.Residuals.MaxPlanarity:E2} bound {r.Residuals.MaxBoundViolation:E2}, peak {Process.GetCurrentProcess().PeakWorkingSet64 / 1e6:F0} MB");
         }
     }
+
+    public static ISpdSolver MakeSolver(string name) => name switch
+    {
+        "auto" => new AutoSolver(),
+        "skyline" => new SkylineCholeskySolver(),
+        "dense" => new DenseOracleSolver(),
+        "banded" => EpsilonConstraintFitter.DefaultSolver(),
+        _ => new SupernodalCholeskySolver(),
+    };
 
     /// <summary>The benchmark case: saddle z = x y / c over a square footprint, cell about 0.1 m.</summary>
     public static (Tessel.Core.Tessellation.GeneratedPattern, ITargetSurface) Saddle(int cells)
