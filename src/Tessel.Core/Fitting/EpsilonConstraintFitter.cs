@@ -24,6 +24,9 @@ public static class EpsilonConstraintFitter
         return result with { Spread = new StartSpread(0, [result.Objective], [result.Converged]) };
     }
 
+    /// <summary>The solver used when none is given.</summary>
+    public static ISpdSolver DefaultSolver() => new BandedCholeskySolver();
+
     internal static FitResult FitWithRows(GeneratedPattern pattern, FitRows rows, FitSettings settings,
         ISpdSolver solver, double[] start) => new FitRun(pattern, rows, settings, solver, start).Run();
 }
@@ -74,8 +77,8 @@ internal sealed class FitRun
         double tolerance = _s.ConstraintTolerance;
         // Phase 1a with a faint pull to the surfaces (well conditioned, lands near the constraint set),
         // phase 1b pure Gauss-Newton on the violation (lands on it).
-        Minimise(Feasibility, Math.Max(1, Math.Min(40, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
-        Minimise(Projection, Math.Max(1, Math.Min(20, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
+        Minimise(Feasibility, Math.Max(1, Math.Min(15, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
+        Minimise(Projection, Math.Max(1, Math.Min(10, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
 
         // Phase 2: epsilon-constraint problem by augmented Lagrangian rounds.
         Evaluate(_x);
