@@ -86,6 +86,7 @@ public static class RigidFoldingPath
         private (double End, string Stop, bool NearFlat) Trace(double[] start, int direction, double[] keys)
         {
             var x = (double[])start.Clone();
+            _lastFactor = null; // taken at the other run's end
             double s = 1.0, h = _settings.StepProgress, nearFlat = _settings.NearFlatFoldAngleDegrees * Math.PI / 180;
             while (true)
             {
@@ -123,6 +124,7 @@ public static class RigidFoldingPath
                 _pinTargets = _pins.Select(p => Weighted(p, predicted)).ToArray();
                 if (!Correct(trial, target, out _))
                 {
+                    _lastFactor = null;
                     h /= 2;
                     if (h < 1e-4 * _settings.StepProgress) return (s, "corrector failed", false);
                     continue;
@@ -168,7 +170,10 @@ public static class RigidFoldingPath
         private double[]? Tangent(double[] x, double s)
         {
             var j = _model.Jacobian(x);
-            var factor = Factor(j);
+            // The corrector's last factor was taken a converged Newton step (about 1e-9) away: good enough to drive
+            // the inverse iteration, while the Rayleigh-Ritz step uses the exact J at x.
+            var factor = _lastFactor ?? Factor(j);
+            _lastFactor = null;
             var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, _fixed, _threshold, 4, _nullBasis);
             int k = ritz.Values.Count(v => v <= _threshold);
             if (_dof < 0) _dof = k;
@@ -247,7 +252,7 @@ public static class RigidFoldingPath
 
         private static double Dot(Vec3 g, double[] v, int vertex) => g.X * v[3 * vertex] + g.Y * v[3 * vertex + 1] + g.Z * v[3 * vertex + 2];
 
-        private EnvelopeCholesky? _pattern;
+        private EnvelopeCholesky? _pattern, _lastFactor;
         private List<double[]> _pins = [];
         private double[] _pinTargets = [];
         private double[] _rhoRate = [];
@@ -302,6 +307,7 @@ public static class RigidFoldingPath
                 previous = worst;
                 var j = _model.Jacobian(x);
                 var factor = Factor(j);
+                _lastFactor = factor;
                 // Dense rows: progress, then the fold-angle pins (DOF > 1), in the scaled unknowns y = x / unit,
                 // each normalised to unit length; added to the sparse factor by the Woodbury identity.
                 var rows = new List<double[]> { ProgressGradient(x) };
