@@ -14,10 +14,13 @@ namespace Tessel.Core.Checks;
 /// The reference panel nearest the centroid keeps three corners fixed, which removes the six rigid motions.
 /// Predictor: a direction in the null space of the constraint Jacobian; with more than one degree of freedom
 /// the one whose fold-angle rates best match a uniform scaling of all fold angles (least squares).
-/// Corrector: minimum-norm Newton steps dx = (J^T J + eps I)^-1 J^T r (= J^T (J J^T + eps I)^-1 r) on the
-/// constraints plus one row pinning the progress, solved by a sparse envelope Cholesky factor with a
-/// Sherman-Morrison update for the dense progress row. The flat state is a branch point, so the flat-ward run
-/// stops just short of it.
+/// Corrector: minimum-norm Newton steps dx = (J^T J + eps I)^-1 J^T r (= J^T (J J^T + eps I)^-1 r, eps = 1e-13
+/// of the largest eigenvalue) on the constraints plus one dense row pinning the progress and, with k &gt; 1 degrees
+/// of freedom, k - 1 dense rows pinning the other reachable fold-angle combinations at their linearised predicted
+/// values (so the path depends on fold angles only, not on which panel is held); solved by a sparse envelope
+/// Cholesky factor of J^T J + eps I with a Woodbury update for the dense rows, refactored every iteration.
+/// The flat state is a branch point, so the flat-ward run stops just short of it (every |fold angle| below
+/// <see cref="FoldingSettings.NearFlatFoldAngleDegrees"/>).
 /// </remarks>
 public static class RigidFoldingPath
 {
@@ -99,14 +102,13 @@ public static class RigidFoldingPath
                 if (direction > 0 && s >= _settings.MaxProgress - 1e-12) return (s, "max progress", false);
                 if (direction > 0 && maxRho > _settings.MaxFoldAngleDegrees * Math.PI / 180) return (s, "fold angle limit", false);
                 double target;
-                bool last = false;
                 if (direction < 0)
                 {
                     // Near flat the fold angles shrink in proportion to progress: aim just under the stop angle.
                     double sNear = s * 0.7 * nearFlat / maxRho;
                     target = s - h;
                     foreach (double k in keys) if (k < s - 1e-12 && k >= target - 1e-9) target = k; // land on keyframes exactly
-                    if (target <= sNear) { target = sNear; last = true; }
+                    if (target <= sNear) target = sNear;
                 }
                 else
                 {
@@ -114,7 +116,7 @@ public static class RigidFoldingPath
                     foreach (double k in keys) if (k > s + 1e-12 && k <= target + 1e-9) target = k;
                 }
                 var tangent = Tangent(x, s);
-                if (tangent == null) return (s, _dof == 0 ? "rigid: no folding motion" : "turning point of progress", false);
+                if (tangent == null) return (s, _nullBasis.Count == 0 ? "rigid: no folding motion" : "turning point of progress", false);
                 var trial = new double[x.Length];
                 for (int i = 0; i < x.Length; i++) trial[i] = x[i] + (target - s) * tangent[i];
                 // Pin targets from the linearised fold angles: intrinsic, unlike the angles at the Cartesian
@@ -133,8 +135,6 @@ public static class RigidFoldingPath
                 Accept(x);
                 if (keys.Any(k => Math.Abs(k - s) < 1e-12)) Keep(s, x);
                 h = Math.Min(_settings.StepProgress, 1.5 * h);
-                if (last && MaxAbs(_dihedrals.Angles(x)) >= nearFlat && h < 1e-4 * _settings.StepProgress)
-                    return (s, "corrector failed", false);
             }
         }
 
