@@ -14,10 +14,13 @@ namespace Tessel.Core.Checks;
 /// The reference panel nearest the centroid keeps three corners fixed, which removes the six rigid motions.
 /// Predictor: a direction in the null space of the constraint Jacobian; with more than one degree of freedom
 /// the one whose fold-angle rates best match a uniform scaling of all fold angles (least squares).
-/// Corrector: minimum-norm Newton steps dx = (J^T J + eps I)^-1 J^T r (= J^T (J J^T + eps I)^-1 r) on the
-/// constraints plus one row pinning the progress, solved by a sparse envelope Cholesky factor with a
-/// Sherman-Morrison update for the dense progress row. The flat state is a branch point, so the flat-ward run
-/// stops just short of it.
+/// Corrector: minimum-norm Newton steps dx = (J^T J + eps I)^-1 J^T r (= J^T (J J^T + eps I)^-1 r, eps = 1e-13
+/// of the largest eigenvalue) on the constraints plus one dense row pinning the progress and, with k &gt; 1 degrees
+/// of freedom, k - 1 dense rows pinning the other reachable fold-angle combinations at their linearised predicted
+/// values (so the path depends on fold angles only, not on which panel is held); solved by a sparse envelope
+/// Cholesky factor of J^T J + eps I with a Woodbury update for the dense rows, refactored every iteration.
+/// The flat state is a branch point, so the flat-ward run stops just short of it (every |fold angle| below
+/// <see cref="FoldingSettings.NearFlatFoldAngleDegrees"/>).
 /// </remarks>
 public static class RigidFoldingPath
 {
@@ -69,6 +72,7 @@ public static class RigidFoldingPath
             _threshold = _settings.RankTolerance * _settings.RankTolerance * lambdaMax;
             // Project the given state onto the constraint set; what remains (inconsistent input) sets the floor.
             _acceptResidual = double.PositiveInfinity;
+            _pinTargets = [];
             Correct(x0, 1.0, out _);
             _acceptResidual = Math.Max(_settings.ConstraintTolerance, 2 * MaxAbs(Residuals(x0)));
             Accept(x0);
@@ -85,6 +89,7 @@ public static class RigidFoldingPath
         private (double End, string Stop, bool NearFlat) Trace(double[] start, int direction, double[] keys)
         {
             var x = (double[])start.Clone();
+            _lastFactor = null; // taken at the other run's end
             double s = 1.0, h = _settings.StepProgress, nearFlat = _settings.NearFlatFoldAngleDegrees * Math.PI / 180;
             while (true)
             {
@@ -97,14 +102,13 @@ public static class RigidFoldingPath
                 if (direction > 0 && s >= _settings.MaxProgress - 1e-12) return (s, "max progress", false);
                 if (direction > 0 && maxRho > _settings.MaxFoldAngleDegrees * Math.PI / 180) return (s, "fold angle limit", false);
                 double target;
-                bool last = false;
                 if (direction < 0)
                 {
                     // Near flat the fold angles shrink in proportion to progress: aim just under the stop angle.
                     double sNear = s * 0.7 * nearFlat / maxRho;
                     target = s - h;
                     foreach (double k in keys) if (k < s - 1e-12 && k >= target - 1e-9) target = k; // land on keyframes exactly
-                    if (target <= sNear) { target = sNear; last = true; }
+                    if (target <= sNear) target = sNear;
                 }
                 else
                 {
@@ -112,11 +116,17 @@ public static class RigidFoldingPath
                     foreach (double k in keys) if (k > s + 1e-12 && k <= target + 1e-9) target = k;
                 }
                 var tangent = Tangent(x, s);
-                if (tangent == null) return (s, _dof == 0 ? "rigid: no folding motion" : "turning point of progress", false);
+                if (tangent == null) return (s, _nullBasis.Count == 0 ? "rigid: no folding motion" : "turning point of progress", false);
                 var trial = new double[x.Length];
                 for (int i = 0; i < x.Length; i++) trial[i] = x[i] + (target - s) * tangent[i];
+                // Pin targets from the linearised fold angles: intrinsic, unlike the angles at the Cartesian
+                // predictor, whose second-order error depends on which panel is held still.
+                var predicted = _dihedrals.Angles(x);
+                for (int i = 0; i < predicted.Length; i++) predicted[i] += (target - s) * _rhoRate[i];
+                _pinTargets = _pins.Select(p => Weighted(p, predicted)).ToArray();
                 if (!Correct(trial, target, out _))
                 {
+                    _lastFactor = null;
                     h /= 2;
                     if (h < 1e-4 * _settings.StepProgress) return (s, "corrector failed", false);
                     continue;
@@ -125,8 +135,6 @@ public static class RigidFoldingPath
                 Accept(x);
                 if (keys.Any(k => Math.Abs(k - s) < 1e-12)) Keep(s, x);
                 h = Math.Min(_settings.StepProgress, 1.5 * h);
-                if (last && MaxAbs(_dihedrals.Angles(x)) >= nearFlat && h < 1e-4 * _settings.StepProgress)
-                    return (s, "corrector failed", false);
             }
         }
 
@@ -138,12 +146,16 @@ public static class RigidFoldingPath
         }
 
         /// <summary>d progress / dx per metre, zero on fixed columns.</summary>
-        private double[] ProgressGradient(double[] x)
+        private double[] ProgressGradient(double[] x) => AngleCombinationGradient(x, _rho0.Select(r => r / _rho0Squared).ToArray());
+
+        /// <summary>Gradient of sum_i w_i rho_i(x) per metre, zero on fixed columns.</summary>
+        private double[] AngleCombinationGradient(double[] x, double[] weights)
         {
             var g = new double[x.Length];
-            for (int i = 0; i < _rho0.Length; i++)
+            for (int i = 0; i < weights.Length; i++)
             {
-                double w = _rho0[i] / _rho0Squared;
+                double w = weights[i];
+                if (w == 0) continue;
                 var (ga, gb, gc, gd) = _dihedrals.Gradient(x, i);
                 AddTo(g, _dihedrals.Wings[4 * i], w * ga); AddTo(g, _dihedrals.Wings[4 * i + 1], w * gb);
                 AddTo(g, _dihedrals.Wings[4 * i + 2], w * gc); AddTo(g, _dihedrals.Wings[4 * i + 3], w * gd);
@@ -158,7 +170,10 @@ public static class RigidFoldingPath
         private double[]? Tangent(double[] x, double s)
         {
             var j = _model.Jacobian(x);
-            var factor = Factor(j);
+            // The corrector's last factor was taken a converged Newton step (about 1e-9) away: good enough to drive
+            // the inverse iteration, while the Rayleigh-Ritz step uses the exact J at x.
+            var factor = _lastFactor ?? Factor(j);
+            _lastFactor = null;
             var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, _fixed, _threshold, 4, _nullBasis);
             int k = ritz.Values.Count(v => v <= _threshold);
             if (_dof < 0) _dof = k;
@@ -176,6 +191,8 @@ public static class RigidFoldingPath
                 }
             var wanted = DenseVector.OfArray(_dihedrals.Angles(x).Select(r => r / s).ToArray());
             var coefficients = (rates.TransposeThisAndMultiply(rates)).Solve(rates.TransposeThisAndMultiply(wanted));
+            _pins = PinDirections(rates);
+            _rhoRate = (rates * coefficients).ToArray();
             var t = new double[x.Length];
             for (int b = 0; b < k; b++)
                 for (int c = 0; c < t.Length; c++) t[c] += coefficients[b] * _nullBasis[b][c];
@@ -185,12 +202,67 @@ public static class RigidFoldingPath
             if (!double.IsFinite(rate) || Math.Abs(rate) < 1e-12 * Math.Sqrt(t.Sum(v => v * v)) * Math.Sqrt(g.Sum(v => v * v)))
                 return null;
             for (int c = 0; c < t.Length; c++) t[c] /= rate;
+            for (int i = 0; i < _rhoRate.Length; i++) _rhoRate[i] /= rate;
             return t;
+        }
+
+        /// <summary>With k &gt; 1 degrees of freedom, the k - 1 fold-angle combinations (unit vectors of length #I) that
+        /// span the reachable fold-angle rates orthogonally to the progress direction rho0. The corrector holds them
+        /// at their predicted values, so the path is fixed by fold angles alone (intrinsic) rather than by which
+        /// panel is held still.</summary>
+        private List<double[]> PinDirections(DenseMatrix rates)
+        {
+            int k = rates.ColumnCount, m = rates.RowCount;
+            if (k < 2) return [];
+            // Orthonormal basis of the reachable rates R, then R's complement of the progress direction P_R rho0:
+            // a subspace, so the pins do not depend on how the null space happened to be spanned.
+            var span = Orthonormal(Enumerable.Range(0, k).Select(b => rates.Column(b).ToArray()), []);
+            var q = new double[m];
+            foreach (var u in span)
+            {
+                double d = Weighted(u, _rho0);
+                for (int i = 0; i < m; i++) q[i] += d * u[i];
+            }
+            var progressDirection = Orthonormal([q], []);
+            return Orthonormal(span, progressDirection).Take(k - 1).ToList();
+        }
+
+        /// <summary>Gram-Schmidt of <paramref name="vectors"/> against <paramref name="against"/> (orthonormal) and each
+        /// other; vectors that vanish are dropped.</summary>
+        private static List<double[]> Orthonormal(IEnumerable<double[]> vectors, List<double[]> against)
+        {
+            var result = new List<double[]>();
+            foreach (var source in vectors)
+            {
+                var v = (double[])source.Clone();
+                double scale = Math.Sqrt(v.Sum(t => t * t));
+                for (int pass = 0; pass < 2; pass++)
+                    foreach (var u in against.Concat(result))
+                    {
+                        double d = Weighted(u, v);
+                        for (int i = 0; i < v.Length; i++) v[i] -= d * u[i];
+                    }
+                double norm = Math.Sqrt(v.Sum(t => t * t));
+                if (norm <= 1e-8 * scale || norm == 0) continue;
+                for (int i = 0; i < v.Length; i++) v[i] /= norm;
+                result.Add(v);
+            }
+            return result;
         }
 
         private static double Dot(Vec3 g, double[] v, int vertex) => g.X * v[3 * vertex] + g.Y * v[3 * vertex + 1] + g.Z * v[3 * vertex + 2];
 
-        private EnvelopeCholesky? _pattern;
+        private EnvelopeCholesky? _pattern, _lastFactor;
+        private List<double[]> _pins = [];
+        private double[] _pinTargets = [];
+        private double[] _rhoRate = [];
+
+        private static double Weighted(double[] w, double[] rho)
+        {
+            double t = 0;
+            for (int i = 0; i < w.Length; i++) t += w[i] * rho[i];
+            return t;
+        }
 
         // The Jacobian's pattern never changes along the path: order and size the envelope once.
         private EnvelopeCholesky Factor(CsrMatrix j)
@@ -221,7 +293,13 @@ public static class RigidFoldingPath
                 var r = Residuals(x);
                 double s = Progress(x);
                 double worst = MaxAbs(r);
-                if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= 1e-12) return true;
+                double pinError = 0;
+                if (_pinTargets.Length == _pins.Count && _pins.Count > 0)
+                {
+                    var angles = _dihedrals.Angles(x);
+                    for (int b = 0; b < _pins.Count; b++) pinError = Math.Max(pinError, Math.Abs(Weighted(_pins[b], angles) - _pinTargets[b]));
+                }
+                if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= 1e-12 && pinError <= 1e-12) return true;
                 if (iterations >= _settings.MaxCorrectorIterations) return worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9;
                 // Stagnation at a least-squares point of inconsistent constraints (non-planar input).
                 if (worst >= 0.9 * previous && worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9) return true;
@@ -229,24 +307,58 @@ public static class RigidFoldingPath
                 previous = worst;
                 var j = _model.Jacobian(x);
                 var factor = Factor(j);
-                var g = ProgressGradient(x);
-                // Progress row in the scaled unknowns y = x / unit, normalised to unit length.
-                double gNorm = 0;
-                for (int c = 0; c < n; c++) { g[c] *= _unit; gNorm += g[c] * g[c]; }
-                gNorm = Math.Sqrt(gNorm);
-                for (int c = 0; c < n; c++) g[c] /= gNorm;
-                double rs = (s - target) / gNorm;
+                _lastFactor = factor;
+                // Dense rows: progress, then the fold-angle pins (DOF > 1), in the scaled unknowns y = x / unit,
+                // each normalised to unit length; added to the sparse factor by the Woodbury identity.
+                var rows = new List<double[]> { ProgressGradient(x) };
+                var rowResiduals = new List<double> { s - target };
+                if (_pinTargets.Length == _pins.Count)
+                {
+                    var rho = _dihedrals.Angles(x);
+                    for (int b = 0; b < _pins.Count; b++)
+                    {
+                        rows.Add(AngleCombinationGradient(x, _pins[b]));
+                        rowResiduals.Add(Weighted(_pins[b], rho) - _pinTargets[b]);
+                    }
+                }
+                int q = rows.Count;
+                for (int b = 0; b < q; b++)
+                {
+                    double norm = 0;
+                    for (int c = 0; c < n; c++) { rows[b][c] *= _unit; norm += rows[b][c] * rows[b][c]; }
+                    norm = Math.Sqrt(norm);
+                    if (norm == 0) norm = 1;
+                    for (int c = 0; c < n; c++) rows[b][c] /= norm;
+                    rowResiduals[b] /= norm;
+                }
                 var rhs = new double[n];
                 ShiftInvertSubspace.MultiplyTransposed(j, r, rhs);
-                for (int c = 0; c < n; c++) rhs[c] = _fixed[c] ? 0 : -(rhs[c] + g[c] * rs);
-                var z1 = new double[n];
-                var z2 = new double[n];
-                factor.Solve(rhs, z1);
-                factor.Solve(g, z2);
-                double gz1 = 0, gz2 = 0;
-                for (int c = 0; c < n; c++) { gz1 += g[c] * z1[c]; gz2 += g[c] * z2[c]; }
-                double f = gz1 / (1 + gz2);
-                for (int c = 0; c < n; c++) if (!_fixed[c]) x[c] += _unit * (z1[c] - f * z2[c]);
+                for (int c = 0; c < n; c++)
+                {
+                    double sum = rhs[c];
+                    for (int b = 0; b < q; b++) sum += rows[b][c] * rowResiduals[b];
+                    rhs[c] = _fixed[c] ? 0 : -sum;
+                }
+                // (A + U U^T)^-1 rhs = z - Z (I + U^T Z)^-1 U^T z, with A z = rhs and A Z = U.
+                var z = new double[n];
+                factor.Solve(rhs, z);
+                var zs = new double[q][];
+                for (int b = 0; b < q; b++) { zs[b] = new double[n]; factor.Solve(rows[b], zs[b]); }
+                var small = DenseMatrix.Create(q, q, 0);
+                var utz = DenseVector.Create(q, 0);
+                for (int a = 0; a < q; a++)
+                {
+                    utz[a] = ShiftInvertSubspace.Dot(rows[a], z);
+                    for (int b = 0; b < q; b++) small[a, b] = (a == b ? 1 : 0) + ShiftInvertSubspace.Dot(rows[a], zs[b]);
+                }
+                var coefficients = small.Solve(utz);
+                for (int c = 0; c < n; c++)
+                {
+                    if (_fixed[c]) continue;
+                    double dy = z[c];
+                    for (int b = 0; b < q; b++) dy -= coefficients[b] * zs[b][c];
+                    x[c] += _unit * dy;
+                }
                 _newton++;
             }
         }

@@ -120,6 +120,44 @@ public class RigidFoldingPathTests
     }
 
     [Fact]
+    public void SymmetricDegreeSixVertexFoldsUniformlyAndKeepsItsSymmetry()
+    {
+        // Six 60-degree sectors, crease elevations alternating 20 deg and psi_b with
+        // 0.5 cos(20) cos(psi_b) + sin(20) sin(psi_b) = 0.5 so every sector stays 60 deg (derived here).
+        // A triangulated disk with 6 boundary vertices has 6 - 3 = 3 DOF (geometry.md section 4); the predictor's
+        // least-squares "uniform scaling" direction is intrinsic and unique, so it must keep the 3-fold symmetry:
+        // rho1 = rho3 = rho5 and rho2 = rho4 = rho6 all the way.
+        double psiA = 20 * Deg;
+        double r = Math.Sqrt(Math.Pow(0.5 * Math.Cos(psiA), 2) + Math.Pow(Math.Sin(psiA), 2));
+        double psiB = Math.Atan2(Math.Sin(psiA), 0.5 * Math.Cos(psiA)) - Math.Acos(0.5 / r);
+        var pos = new double[7 * 3];
+        for (int k = 0; k < 6; k++)
+        {
+            double psi = k % 2 == 0 ? psiA : psiB, phi = k * 60 * Deg;
+            new Vec3(Math.Cos(phi) * Math.Cos(psi), Math.Sin(phi) * Math.Cos(psi), Math.Sin(psi)).Write(pos, k + 1);
+        }
+        var faces = Enumerable.Range(0, 6).Select(k => new[] { 0, k + 1, (k + 1) % 6 + 1 }).ToArray();
+        var mesh = RegularMiuraSheet.AssignRolesFromGeometry(
+            new CreaseMesh("vertex6", pos, faces, new VertexLayer[7], (_, _) => CreaseRole.Flat));
+        for (int k = 0; k < 6; k++)
+            Assert.Equal(60.0, Vec3.Angle(mesh.Vertex(k + 1), mesh.Vertex((k + 1) % 6 + 1)) / Deg, 9);
+        Assert.Equal(3, RigidityAnalysis.DegreesOfFreedom(mesh).DegreesOfFreedom);
+        var path = RigidFoldingPath.Simulate(mesh, new FoldingSettings(MaxProgress: 1.5, KeyframeProgress: [0.2, 0.5, 1.0, 1.5]));
+        Assert.Equal(3, path.DegreesOfFreedom);
+        Assert.True(path.ReachedNearFlat, path.StopTowardFlat);
+        Assert.Equal(1.5, path.HighestProgress, 12);
+        Assert.True(path.MaxBarStrain < 1e-9, $"drift {path.MaxBarStrain}");
+        Assert.Equal(5, path.Keyframes.Count);
+        foreach (var key in path.Keyframes)
+        {
+            double[] rho = Enumerable.Range(1, 6).Select(k => Rho(mesh, key.Positions, k)).ToArray();
+            // 1e-10 rad (about 2e-13 is seen): a corrector without fold-angle pins (Cartesian min-norm only) broke it by 1e-4.
+            foreach (var (p, q) in new[] { (0, 2), (0, 4), (1, 3), (1, 5) })
+                Assert.True(Math.Abs(rho[p] - rho[q]) < 1e-10, $"progress {key.Progress}: rho{p + 1} {rho[p]} vs rho{q + 1} {rho[q]}");
+        }
+    }
+
+    [Fact]
     public void FlatInputIsRejected()
     {
         Assert.Throws<ArgumentException>(() => RigidFoldingPath.Simulate(CheckMeshes.Miura(1, 1, thetaDeg: 0)));

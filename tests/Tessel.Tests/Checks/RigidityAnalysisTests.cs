@@ -1,4 +1,5 @@
 using Tessel.Core.Checks;
+using Tessel.Core.Tessellation;
 
 namespace Tessel.Tests.Checks;
 
@@ -38,6 +39,26 @@ public class RigidityAnalysisTests
         var sparse = RigidityAnalysis.DegreesOfFreedom(mesh, new RigiditySettings(Method: RankMethod.ShiftInvert));
         Assert.Equal(boundary - 3, dense.DegreesOfFreedom);
         Assert.Equal(boundary - 3, sparse.DegreesOfFreedom);
+    }
+
+    [Fact]
+    public void DegreeThreeCapAndSingleHexagonalPanelAreRigid()
+    {
+        // Derived here: three triangles round a raised vertex form a tetrahedron without its base (4 vertices,
+        // 6 bars: 12 - 6 - 6 = 0); a hexagonal panel carries 3*6 - 6 = 12 constraints (6 sides, 3 fan diagonals,
+        // 3 planarity rows): 18 - 12 - 6 = 0, even lying flat, because planarity rows hold it out of plane.
+        var cap = new CreaseMesh("cap", [0, 0, 0.5, 1, 0, 0, -0.5, 0.8, 0, -0.5, -0.8, 0],
+            [[0, 1, 2], [0, 2, 3], [0, 3, 1]], new VertexLayer[4], (_, _) => CreaseRole.Mountain);
+        var hexPositions = new double[18];
+        for (int k = 0; k < 6; k++) { hexPositions[3 * k] = Math.Cos(k * Math.PI / 3); hexPositions[3 * k + 1] = Math.Sin(k * Math.PI / 3); }
+        var hexagon = new CreaseMesh("panel", hexPositions, [[0, 1, 2, 3, 4, 5]], new VertexLayer[6], (_, _) => CreaseRole.Flat);
+        foreach (var mesh in new[] { cap, hexagon })
+            foreach (var method in new[] { RankMethod.DenseSvd, RankMethod.ShiftInvert })
+                Assert.Equal(0, RigidityAnalysis.DegreesOfFreedom(mesh, new RigiditySettings(Method: method)).DegreesOfFreedom);
+        var path = RigidFoldingPath.Simulate(cap);
+        Assert.Equal(0, path.DegreesOfFreedom);
+        Assert.False(path.ReachedNearFlat);
+        Assert.StartsWith("rigid", path.StopTowardFlat);
     }
 
     [Fact]
