@@ -16,7 +16,7 @@ public static class SheetLayout
     private sealed record PendingLine(int Part, int Order, LineClass Class, Vec2[] Points, bool Closed, LineJob Job);
 
     /// <summary>Which pass of the laser a line belongs to; the enum order is the cutting order.</summary>
-    private enum LineJob { Annotation, Label, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
+    private enum LineJob { Annotation, Label, BackLabel, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
 
     /// <summary>Lays out <paramref name="pattern"/> (metres, full scale) on sheets.</summary>
     /// <exception cref="ArgumentException">When the margins and tab allowance leave no room on the sheet.</exception>
@@ -191,6 +191,7 @@ public static class SheetLayout
                 tab.Polygon.Select(m => Place(tabPart, m)).ToArray());
         }
 
+        var labelJob = settings.LabelsOnBack ? LineJob.BackLabel : LineJob.Label;
         for (int p = 0; p < partCount; p++)
         {
             var outline = outlines[p];
@@ -199,13 +200,26 @@ public static class SheetLayout
                 lines.Add(new PendingLine(p, h, LineClass.CutInner, NtsGeometry.OpenRing(outline.GetInteriorRingN(h)).Select(m => Place(p, m)).ToArray(), true, LineJob.InnerCut));
             var (number, arrow) = PartMark(p, partFaces[p], facePolys, settings.LabelHeightMm, angles[p], m => Place(p, m), placements[p].Bin + 1);
             labels.Add((p, number));
-            foreach (var stroke in arrow) lines.Add(new PendingLine(p, 0, LineClass.Label, stroke, false, LineJob.Label));
+            foreach (var stroke in arrow) lines.Add(new PendingLine(p, 0, LineClass.Label, stroke, false, labelJob));
         }
 
         // Labels become single-stroke glyphs; the font turns counter-clockwise as seen, our angles clockwise.
+        // Labels for the back are laid out to read on the back job, then kept in front coordinates like every
+        // other back line (the back job mirrors x' = W - x when the sheets are put together).
+        if (settings.LabelsOnBack)
+        {
+            for (int i = 0; i < labels.Count; i++)
+            {
+                var l = labels[i].Label;
+                labels[i] = (labels[i].Part, l with { Centre = new Vec2(sheetW - l.Centre.X, l.Centre.Y), AngleRadians = Upright(Math.PI - l.AngleRadians), Side = "back" });
+            }
+        }
         foreach (var (part, label) in labels)
             foreach (var stroke in StrokeFont.Layout(label.Text, label.Centre, label.HeightMm, -label.AngleRadians, TextAnchor.MiddleCentre))
-                lines.Add(new PendingLine(part, label.Purpose == LabelPurpose.PartNumber ? 0 : 1, LineClass.Label, stroke, false, LineJob.Label));
+            {
+                var points = settings.LabelsOnBack ? stroke.Select(q => new Vec2(sheetW - q.X, q.Y)).ToArray() : stroke;
+                lines.Add(new PendingLine(part, label.Purpose == LabelPurpose.PartNumber ? 0 : 1, LineClass.Label, points, false, labelJob));
+            }
 
         // Sheets: the lines in job order, parts in number order, each part's lines in edge order.
         var sheets = new List<Sheet>();
@@ -218,7 +232,7 @@ public static class SheetLayout
             var sheetLines = lines.Where(l => placements[l.Part].Bin == sh)
                 .OrderBy(l => l.Job).ThenBy(l => l.Part).ThenBy(l => l.Order).ThenBy(l => l.Class).ToList();
             var marks = settings.NeedsBackJob ? RegistrationMarks(sheetW, sheetH, margin) : [];
-            var front = marks.Concat(sheetLines.Where(l => l.Job != LineJob.BackScore).Select(l => new SheetLine(l.Class, l.Points, l.Closed))).ToArray();
+            var front = marks.Concat(sheetLines.Where(l => l.Job is not (LineJob.BackScore or LineJob.BackLabel)).Select(l => new SheetLine(l.Class, l.Points, l.Closed))).ToArray();
             foreach (var l in sheetLines)
             {
                 double len = PathLength(l.Points, l.Closed);
@@ -229,12 +243,12 @@ public static class SheetLayout
                     case LineJob.PerforationCut: perfCut += len; break;
                     case LineJob.Score: score += len; break;
                     case LineJob.BackScore: backScore += len; break;
-                    case LineJob.Label: labelLength += len; break;
+                    case LineJob.Label or LineJob.BackLabel: labelLength += len; break;
                 }
             }
             if (settings.NeedsBackJob)
             {
-                var back = marks.Concat(sheetLines.Where(l => l.Job == LineJob.BackScore)
+                var back = marks.Concat(sheetLines.Where(l => l.Job is LineJob.BackScore or LineJob.BackLabel)
                     .Select(l => new SheetLine(l.Class, l.Points.Select(q => new Vec2(sheetW - q.X, q.Y)).ToArray(), l.Closed))).ToArray();
                 travel += TravelLength(back);
                 sheets.Add(new Sheet(sh + 1, sheetW, sheetH, back) { Side = "back", Utilisation = utilisation[sh] });

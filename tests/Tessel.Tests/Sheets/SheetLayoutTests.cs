@@ -303,6 +303,41 @@ public class SheetLayoutTests
             Assert.True(a.ExteriorRing.Distance(new GeometryFactory().CreatePoint(new Coordinate(p.X, p.Y))) >= 0.2 - 1e-6);
     }
 
+    [Fact]
+    public void FacetLargerThanTheSheetOrNoRoomIsRefusedWithAReason()
+    {
+        // 1 m facets at 1:2 are 500 mm: no A4 turning holds one.
+        var big = Assert.Throws<InvalidOperationException>(() => SheetLayout.Lay(FlatMiura.Build(1, 1), Card with { ScaleDenominator = 2 }));
+        Assert.Contains("larger than the usable sheet area", big.Message);
+        // 30 mm margins and 7 mm tabs leave nothing of a 60 x 60 mm sheet.
+        Assert.Throws<ArgumentException>(() => SheetLayout.Lay(Miura, Card with { Sheet = new SheetSize("tiny", 60, 60), MarginMm = 30 }));
+    }
+
+    [Fact]
+    public void LabelsOnTheBackGoIntoTheMirroredJobAndReadFromTheBack()
+    {
+        var settings = Card with { LabelsOnBack = true, ValleyMethod = FoldMethod.Score };
+        var layout = SheetLayout.Lay(Miura, settings);
+        double w = settings.Sheet.WidthMm;
+        Assert.DoesNotContain(layout.Sheets.Where(s => s.Side == "front").SelectMany(s => s.Lines), l => l.Class == LineClass.Label);
+        foreach (var back in layout.Sheets.Where(s => s.Side == "back"))
+        {
+            var outlines = layout.Parts.Where(p => p.Sheet == back.Number).Select(p => Poly(p.Outline)).ToArray();
+            var strokes = back.Lines.Where(l => l.Class == LineClass.Label).ToArray();
+            Assert.NotEmpty(strokes);
+            Assert.Equal(strokes.Length, back.Lines.Count(l => l.Class != LineClass.Annotation));
+            // Flipped back onto the front (x = W - x'), every stroke lies on its part.
+            foreach (var p in strokes.SelectMany(l => l.Points))
+                Assert.Single(outlines, o => o.Contains(new GeometryFactory().CreatePoint(new Coordinate(w - p.X, p.Y))));
+        }
+        Assert.All(layout.Labels, l => Assert.Equal("back", l.Side));
+        // Same text, positions mirrored: a label's back centre is the front one with x' = W - x.
+        var front = CardLayout.Labels.Single(l => l.Text == "1" && l.Purpose == LabelPurpose.PartNumber);
+        var mirrored = layout.Labels.Single(l => l.Text == "1" && l.Purpose == LabelPurpose.PartNumber);
+        Assert.Equal(w - front.Centre.X, mirrored.Centre.X, 9);
+        Assert.Equal(front.Centre.Y, mirrored.Centre.Y, 9);
+    }
+
     private static double SegmentDistance(Vec2 p, Vec2 a, Vec2 b)
     {
         var d = b - a;
