@@ -27,6 +27,10 @@ public static class SheetLayout
     /// of each face, numbered from 0 by lowest face) instead of found; for tests of seams and tabs.</summary>
     internal static SheetLayoutResult Lay(FlatPattern pattern, FabricationSettings settings, int[]? givenParts)
     {
+        if (!(settings.ScaleDenominator > 0)) throw new ArgumentOutOfRangeException(nameof(settings), "scale denominator must be positive");
+        if (!(settings.TabWidthMm > 0)) throw new ArgumentOutOfRangeException(nameof(settings), "tab width must be positive");
+        if (!(settings.TabTaperDegrees > 0 && settings.TabTaperDegrees < 90)) throw new ArgumentOutOfRangeException(nameof(settings), "tab taper must lie between 0 and 90 degrees");
+        if (!(settings.KerfMm >= 0 && settings.PartGapMm >= 0 && settings.MarginMm >= 0)) throw new ArgumentOutOfRangeException(nameof(settings), "kerf, gap and margin must not be negative");
         var mesh = pattern.Folded;
         var material = settings.Material;
         double k = settings.MillimetresPerMetre;
@@ -229,8 +233,17 @@ public static class SheetLayout
         {
             var onSheet = Enumerable.Range(0, partCount).Where(p => placements[p].Bin == sh).ToArray();
             utilisation[sh] = onSheet.Sum(p => outlines[p].Area) / (usableW * usableH);
-            var sheetLines = lines.Where(l => placements[l.Part].Bin == sh)
+            var sorted = lines.Where(l => placements[l.Part].Bin == sh)
                 .OrderBy(l => l.Job).ThenBy(l => l.Part).ThenBy(l => l.Order).ThenBy(l => l.Class).ToList();
+            // Within each pass, nearest line next: the front job starts at the sheet's top-left corner, the
+            // back job at its own top-left, which is the front's top-right.
+            var sheetLines = new List<PendingLine>();
+            Vec2 atFront = Vec2.Zero, atBack = new(sheetW, 0);
+            foreach (var group in sorted.GroupBy(l => l.Job))
+            {
+                if (group.Key is LineJob.BackLabel or LineJob.BackScore) sheetLines.AddRange(NearestFirst(group.ToList(), ref atBack));
+                else sheetLines.AddRange(NearestFirst(group.ToList(), ref atFront));
+            }
             var marks = settings.NeedsBackJob ? RegistrationMarks(sheetW, sheetH, margin) : [];
             var front = marks.Concat(sheetLines.Where(l => l.Job is not (LineJob.BackScore or LineJob.BackLabel)).Select(l => new SheetLine(l.Class, l.Points, l.Closed))).ToArray();
             foreach (var l in sheetLines)
@@ -315,6 +328,35 @@ public static class SheetLayout
         var orderedLabels = labels.OrderBy(l => l.Label.Sheet).ThenBy(l => l.Part).ThenBy(l => l.Label.Purpose).ThenBy(l => l.Label.Text, StringComparer.Ordinal)
             .Select(l => l.Label).ToArray();
         return new SheetLayoutResult(sheets.ToArray(), parts, seams, orderedLabels, figures);
+    }
+
+    /// <summary>Orders a pass greedily: from the head's position, the line whose start (or, for open lines, end)
+    /// is nearest goes next, open lines turned round when entered from their end. Ties keep the earlier line.</summary>
+    private static List<PendingLine> NearestFirst(List<PendingLine> group, ref Vec2 at)
+    {
+        var used = new bool[group.Count];
+        var result = new List<PendingLine>(group.Count);
+        for (int n = 0; n < group.Count; n++)
+        {
+            int best = -1; bool reverse = false; double bestD = double.PositiveInfinity;
+            for (int i = 0; i < group.Count; i++)
+            {
+                if (used[i]) continue;
+                var pts = group[i].Points;
+                double d = (pts[0] - at).Length;
+                if (d < bestD) { bestD = d; best = i; reverse = false; }
+                if (!group[i].Closed)
+                {
+                    double e = (pts[^1] - at).Length;
+                    if (e < bestD) { bestD = e; best = i; reverse = true; }
+                }
+            }
+            used[best] = true;
+            var line = reverse ? group[best] with { Points = group[best].Points.Reverse().ToArray() } : group[best];
+            result.Add(line);
+            at = line.Closed ? line.Points[0] : line.Points[^1];
+        }
+        return result;
     }
 
     /// <summary>Splits for the full usable area and for its halves each way, and keeps the split whose parts
