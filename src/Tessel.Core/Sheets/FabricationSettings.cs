@@ -45,6 +45,10 @@ public sealed record FabricationSettings
     /// in the mirrored back job, laid out to read from the back; needs two-sided work.</summary>
     public bool LabelsOnBack { get; init; }
 
+    /// <summary>Which way the stock's grain runs; parts are then turned so their longest crease family
+    /// follows it ([CP], fabrication.md), where they fit that way.</summary>
+    public GrainDirection Grain { get; init; } = GrainDirection.Any;
+
     /// <summary>Least distance between two parts' cut outlines.</summary>
     public double SpacingMm => KerfMm + PartGapMm;
 

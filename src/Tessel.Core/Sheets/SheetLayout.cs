@@ -118,7 +118,22 @@ public static class SheetLayout
             boxes[p] = MinimumAreaRectangle.FittingBox(hulls[p], usableW, usableH, MinimumAreaRectangle.CaliperAngles(faceHull))
                 ?? throw new InvalidOperationException($"part {p + 1} does not fit the usable sheet area");
         }
-        var placements = RectanglePacker.Pack(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing);
+        var fixedTurn = new bool[partCount];
+        if (settings.Grain != GrainDirection.Any)
+        {
+            var offGrain = new List<int>();
+            for (int p = 0; p < partCount; p++)
+            {
+                double family = LongestCreaseFamily(pattern, partOf, p, model);
+                double angle = (settings.Grain == GrainDirection.AlongWidth ? 0 : Math.PI / 2) - family;
+                var box = MinimumAreaRectangle.BoxAt(hulls[p], angle);
+                if (box.Width <= usableW + 1e-9 && box.Height <= usableH + 1e-9) { boxes[p] = box; fixedTurn[p] = true; }
+                else offGrain.Add(p + 1);
+            }
+            if (offGrain.Count > 0)
+                warnings.Add($"{offGrain.Count} part(s) fit the sheet only across the grain: {string.Join(", ", offGrain)}");
+        }
+        var placements = RectanglePacker.Pack(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing, fixedTurn);
         int sheetCount = partCount == 0 ? 0 : placements.Max(pl => pl.Bin) + 1;
         var angles = new double[partCount];
         var offsets = new Vec2[partCount];
@@ -328,6 +343,30 @@ public static class SheetLayout
         var orderedLabels = labels.OrderBy(l => l.Label.Sheet).ThenBy(l => l.Part).ThenBy(l => l.Label.Purpose).ThenBy(l => l.Label.Text, StringComparer.Ordinal)
             .Select(l => l.Label).ToArray();
         return new SheetLayoutResult(sheets.ToArray(), parts, seams, orderedLabels, figures);
+    }
+
+    /// <summary>Direction (radians, in [0, pi), model frame) of the part's longest crease family: mountain and
+    /// valley edges grouped by direction to the nearest tenth of a degree, summed by length; ties take the
+    /// smaller angle.</summary>
+    private static double LongestCreaseFamily(FlatPattern pattern, int[] partOf, int part, Vec2[] model)
+    {
+        var mesh = pattern.Folded;
+        var totals = new SortedDictionary<int, double>();
+        for (int e = 0; e < mesh.EdgeCount; e++)
+        {
+            if (!mesh.IsInterior(e) || partOf[mesh.EdgeFaceLeft[e]] != part || partOf[mesh.EdgeFaceRight[e]] != part) continue;
+            if (pattern.Role(e) is not (CreaseRole.Mountain or CreaseRole.Valley)) continue;
+            var (v0, v1) = pattern.Edge(e);
+            var d = model[v1] - model[v0];
+            double a = Math.Atan2(d.Y, d.X);
+            if (a < 0) a += Math.PI;
+            int bin = (int)Math.Round(a * 1800 / Math.PI) % 1800;
+            totals[bin] = totals.GetValueOrDefault(bin) + d.Length;
+        }
+        if (totals.Count == 0) return 0;
+        var best = totals.First();
+        foreach (var kv in totals) if (kv.Value > best.Value + 1e-9) best = kv;
+        return best.Key * Math.PI / 1800;
     }
 
     /// <summary>Orders a pass greedily: from the head's position, the line whose start (or, for open lines, end)

@@ -353,6 +353,32 @@ public class SheetLayoutTests
         Assert.Equal(front.Centre.Y, mirrored.Centre.Y, 9);
     }
 
+    [Theory]
+    [InlineData(GrainDirection.AlongWidth, 0.0)]
+    [InlineData(GrainDirection.AlongHeight, 90.0)]
+    public void LongestCreaseFamilyFollowsTheGrain(GrainDirection grain, double expectedDegrees)
+    {
+        // Common practice (fabrication.md [CP]): fold long crease families along the grain.
+        var layout = SheetLayout.Lay(Miura, Card with { Grain = grain });
+        Assert.DoesNotContain(layout.Figures.Warnings, w => w.Contains("across the grain"));
+        var mesh = Miura.Folded;
+        foreach (var part in layout.Parts)
+        {
+            var inPart = new HashSet<int>(part.Faces);
+            var totals = new Dictionary<int, double>();
+            for (int e = 0; e < mesh.EdgeCount; e++)
+            {
+                if (!mesh.IsInterior(e) || !inPart.Contains(mesh.EdgeFaceLeft[e]) || !inPart.Contains(mesh.EdgeFaceRight[e])) continue;
+                if (Miura.Role(e) is not (Core.Tessellation.CreaseRole.Mountain or Core.Tessellation.CreaseRole.Valley)) continue;
+                var (v0, v1) = Miura.Edge(e);
+                var d = part.VertexPositions[Array.BinarySearch(part.Vertices, v1)] - part.VertexPositions[Array.BinarySearch(part.Vertices, v0)];
+                int deg = (int)Math.Round((Math.Atan2(d.Y, d.X) * 180 / Math.PI + 360) % 180) % 180;
+                totals[deg] = totals.GetValueOrDefault(deg) + d.Length;
+            }
+            Assert.Equal((int)expectedDegrees, totals.OrderByDescending(kv => kv.Value).ThenBy(kv => kv.Key).First().Key);
+        }
+    }
+
     private static double SegmentDistance(Vec2 p, Vec2 a, Vec2 b)
     {
         var d = b - a;
