@@ -248,15 +248,17 @@ public static class SheetLayout
         {
             var onSheet = Enumerable.Range(0, partCount).Where(p => placements[p].Bin == sh).ToArray();
             utilisation[sh] = onSheet.Sum(p => outlines[p].Area) / (usableW * usableH);
+            // Passes in job order; within a pass, classes in the writers' layer order (they write one layer
+            // per class in that order), so the order here is the order in the files.
             var sorted = lines.Where(l => placements[l.Part].Bin == sh)
-                .OrderBy(l => l.Job).ThenBy(l => l.Part).ThenBy(l => l.Order).ThenBy(l => l.Class).ToList();
-            // Within each pass, nearest line next: the front job starts at the sheet's top-left corner, the
-            // back job at its own top-left, which is the front's top-right.
+                .OrderBy(l => l.Job).ThenBy(l => ClassRank(l.Class)).ThenBy(l => l.Part).ThenBy(l => l.Order).ToList();
+            // Within each pass and class, nearest line next: the front job starts at the sheet's top-left
+            // corner, the back job at its own top-left, which is the front's top-right.
             var sheetLines = new List<PendingLine>();
             Vec2 atFront = Vec2.Zero, atBack = new(sheetW, 0);
-            foreach (var group in sorted.GroupBy(l => l.Job))
+            foreach (var group in sorted.GroupBy(l => (l.Job, l.Class)))
             {
-                if (group.Key is LineJob.BackLabel or LineJob.BackScore) sheetLines.AddRange(NearestFirst(group.ToList(), ref atBack));
+                if (group.Key.Job is LineJob.BackLabel or LineJob.BackScore) sheetLines.AddRange(NearestFirst(group.ToList(), ref atBack));
                 else sheetLines.AddRange(NearestFirst(group.ToList(), ref atFront));
             }
             var marks = settings.NeedsBackJob ? RegistrationMarks(sheetW, sheetH, margin) : [];
@@ -367,6 +369,12 @@ public static class SheetLayout
         var best = totals.First();
         foreach (var kv in totals) if (kv.Value > best.Value + 1e-9) best = kv;
         return best.Key * Math.PI / 1800;
+    }
+
+    private static int ClassRank(LineClass c)
+    {
+        int i = LineStyleTable.FabricationOrder.ToList().IndexOf(c);
+        return i < 0 ? int.MaxValue : i;
     }
 
     /// <summary>Orders a pass greedily: from the head's position, the line whose start (or, for open lines, end)
