@@ -41,6 +41,14 @@ public sealed record FabricationSettings
     public SheetRegion AnnotationStrip =>
         new(MarginMm, Sheet.HeightMm - MarginMm - AnnotationStripMm, Sheet.WidthMm - 2 * MarginMm, AnnotationStripMm);
 
+    /// <summary>Put seam codes, part numbers and arrows on the back (the hidden side of the glued model)
+    /// in the mirrored back job, laid out to read from the back; needs two-sided work.</summary>
+    public bool LabelsOnBack { get; init; }
+
+    /// <summary>Which way the stock's grain runs; parts are then turned so their longest crease family
+    /// follows it ([CP], fabrication.md), where they fit that way.</summary>
+    public GrainDirection Grain { get; init; } = GrainDirection.Any;
+
     /// <summary>Least distance between two parts' cut outlines.</summary>
     public double SpacingMm => KerfMm + PartGapMm;
 
@@ -55,11 +63,12 @@ public sealed record FabricationSettings
         _ => null,
     };
 
-    /// <summary>True when some fold is scored from the back, so a mirrored back job is needed.</summary>
+    /// <summary>True when some fold is scored from the back or labels go on the back, so a mirrored back job is needed.</summary>
     public bool NeedsBackJob =>
         MethodFor(CreaseRole.Mountain) == FoldMethod.ScoreFromBack
         || MethodFor(CreaseRole.Valley) == FoldMethod.ScoreFromBack
-        || TabFoldMethod == FoldMethod.ScoreFromBack;
+        || TabFoldMethod == FoldMethod.ScoreFromBack
+        || LabelsOnBack;
 
     /// <summary>Clear zone around every vertex where a perforation must not cut: max(1 mm, 2 t).</summary>
     public double PerforationVertexZoneMm => Math.Max(1.0, 2 * Material.ThicknessMm);

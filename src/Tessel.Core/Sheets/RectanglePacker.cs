@@ -17,9 +17,11 @@ public static class RectanglePacker
     private const double Eps = 1e-9;
 
     /// <summary>Packs #N rectangles (width, height) into bins of binWidth x binHeight.</summary>
+    /// <param name="fixedTurn">#N flags (or null): true keeps that rectangle as given (no quarter turn).</param>
     /// <returns>#N placements in input order.</returns>
-    /// <exception cref="ArgumentException">When a rectangle fits an empty bin in neither turning.</exception>
-    public static RectanglePlacement[] Pack(IReadOnlyList<(double Width, double Height)> items, double binWidth, double binHeight)
+    /// <exception cref="ArgumentException">When a rectangle fits an empty bin in no allowed turning.</exception>
+    public static RectanglePlacement[] Pack(IReadOnlyList<(double Width, double Height)> items, double binWidth, double binHeight,
+        IReadOnlyList<bool>? fixedTurn = null)
     {
         var order = Enumerable.Range(0, items.Count)
             .OrderByDescending(i => items[i].Width * items[i].Height).ThenBy(i => i).ToArray();
@@ -28,15 +30,16 @@ public static class RectanglePacker
         foreach (int i in order)
         {
             var (w, h) = items[i];
-            if (!FitsEmpty(w, h, binWidth, binHeight) && !FitsEmpty(h, w, binWidth, binHeight))
+            bool canTurn = fixedTurn is null || !fixedTurn[i];
+            if (!FitsEmpty(w, h, binWidth, binHeight) && !(canTurn && FitsEmpty(h, w, binWidth, binHeight)))
                 throw new ArgumentException($"rectangle {i} ({w:F1} x {h:F1} mm) is larger than the bin ({binWidth:F1} x {binHeight:F1} mm)");
             bool placed = false;
             for (int b = 0; b < bins.Count && !placed; b++)
-                placed = TryPlace(bins[b], b, w, h, out result[i]);
+                placed = TryPlace(bins[b], b, w, h, canTurn, out result[i]);
             if (!placed)
             {
                 bins.Add([new Rect(0, 0, binWidth, binHeight)]);
-                TryPlace(bins[^1], bins.Count - 1, w, h, out result[i]);
+                TryPlace(bins[^1], bins.Count - 1, w, h, canTurn, out result[i]);
             }
         }
         return result;
@@ -44,14 +47,14 @@ public static class RectanglePacker
 
     private static bool FitsEmpty(double w, double h, double bw, double bh) => w <= bw + Eps && h <= bh + Eps;
 
-    private static bool TryPlace(List<Rect> free, int bin, double w, double h, out RectanglePlacement placement)
+    private static bool TryPlace(List<Rect> free, int bin, double w, double h, bool canTurn, out RectanglePlacement placement)
     {
         double bestShort = double.PositiveInfinity, bestLong = double.PositiveInfinity;
         Rect best = default;
         bool turned = false, found = false;
         foreach (var f in free)
         {
-            for (int t = 0; t < 2; t++)
+            for (int t = 0; t < (canTurn ? 2 : 1); t++)
             {
                 double pw = t == 0 ? w : h, ph = t == 0 ? h : w;
                 if (pw > f.W + Eps || ph > f.H + Eps) continue;

@@ -16,7 +16,7 @@ public static class SheetLayout
     private sealed record PendingLine(int Part, int Order, LineClass Class, Vec2[] Points, bool Closed, LineJob Job);
 
     /// <summary>Which pass of the laser a line belongs to; the enum order is the cutting order.</summary>
-    private enum LineJob { Annotation, Label, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
+    private enum LineJob { Annotation, Label, BackLabel, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
 
     /// <summary>Lays out <paramref name="pattern"/> (metres, full scale) on sheets.</summary>
     /// <exception cref="ArgumentException">When the margins and tab allowance leave no room on the sheet.</exception>
@@ -27,6 +27,10 @@ public static class SheetLayout
     /// of each face, numbered from 0 by lowest face) instead of found; for tests of seams and tabs.</summary>
     internal static SheetLayoutResult Lay(FlatPattern pattern, FabricationSettings settings, int[]? givenParts)
     {
+        if (!(settings.ScaleDenominator > 0)) throw new ArgumentOutOfRangeException(nameof(settings), "scale denominator must be positive");
+        if (!(settings.TabWidthMm > 0)) throw new ArgumentOutOfRangeException(nameof(settings), "tab width must be positive");
+        if (!(settings.TabTaperDegrees > 0 && settings.TabTaperDegrees < 90)) throw new ArgumentOutOfRangeException(nameof(settings), "tab taper must lie between 0 and 90 degrees");
+        if (!(settings.KerfMm >= 0 && settings.PartGapMm >= 0 && settings.MarginMm >= 0)) throw new ArgumentOutOfRangeException(nameof(settings), "kerf, gap and margin must not be negative");
         var mesh = pattern.Folded;
         var material = settings.Material;
         double k = settings.MillimetresPerMetre;
@@ -114,7 +118,22 @@ public static class SheetLayout
             boxes[p] = MinimumAreaRectangle.FittingBox(hulls[p], usableW, usableH, MinimumAreaRectangle.CaliperAngles(faceHull))
                 ?? throw new InvalidOperationException($"part {p + 1} does not fit the usable sheet area");
         }
-        var placements = RectanglePacker.Pack(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing);
+        var fixedTurn = new bool[partCount];
+        if (settings.Grain != GrainDirection.Any)
+        {
+            var offGrain = new List<int>();
+            for (int p = 0; p < partCount; p++)
+            {
+                double family = LongestCreaseFamily(pattern, partOf, p, model);
+                double angle = (settings.Grain == GrainDirection.AlongWidth ? 0 : Math.PI / 2) - family;
+                var box = MinimumAreaRectangle.BoxAt(hulls[p], angle);
+                if (box.Width <= usableW + 1e-9 && box.Height <= usableH + 1e-9) { boxes[p] = box; fixedTurn[p] = true; }
+                else offGrain.Add(p + 1);
+            }
+            if (offGrain.Count > 0)
+                warnings.Add($"{offGrain.Count} part(s) fit the sheet only across the grain: {string.Join(", ", offGrain)}");
+        }
+        var placements = RectanglePacker.Pack(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing, fixedTurn);
         int sheetCount = partCount == 0 ? 0 : placements.Max(pl => pl.Bin) + 1;
         var angles = new double[partCount];
         var offsets = new Vec2[partCount];
@@ -191,6 +210,7 @@ public static class SheetLayout
                 tab.Polygon.Select(m => Place(tabPart, m)).ToArray());
         }
 
+        var labelJob = settings.LabelsOnBack ? LineJob.BackLabel : LineJob.Label;
         for (int p = 0; p < partCount; p++)
         {
             var outline = outlines[p];
@@ -199,13 +219,26 @@ public static class SheetLayout
                 lines.Add(new PendingLine(p, h, LineClass.CutInner, NtsGeometry.OpenRing(outline.GetInteriorRingN(h)).Select(m => Place(p, m)).ToArray(), true, LineJob.InnerCut));
             var (number, arrow) = PartMark(p, partFaces[p], facePolys, settings.LabelHeightMm, angles[p], m => Place(p, m), placements[p].Bin + 1);
             labels.Add((p, number));
-            foreach (var stroke in arrow) lines.Add(new PendingLine(p, 0, LineClass.Label, stroke, false, LineJob.Label));
+            foreach (var stroke in arrow) lines.Add(new PendingLine(p, 0, LineClass.Label, stroke, false, labelJob));
         }
 
         // Labels become single-stroke glyphs; the font turns counter-clockwise as seen, our angles clockwise.
+        // Labels for the back are laid out to read on the back job, then kept in front coordinates like every
+        // other back line (the back job mirrors x' = W - x when the sheets are put together).
+        if (settings.LabelsOnBack)
+        {
+            for (int i = 0; i < labels.Count; i++)
+            {
+                var l = labels[i].Label;
+                labels[i] = (labels[i].Part, l with { Centre = new Vec2(sheetW - l.Centre.X, l.Centre.Y), AngleRadians = Upright(Math.PI - l.AngleRadians), Side = "back" });
+            }
+        }
         foreach (var (part, label) in labels)
             foreach (var stroke in StrokeFont.Layout(label.Text, label.Centre, label.HeightMm, -label.AngleRadians, TextAnchor.MiddleCentre))
-                lines.Add(new PendingLine(part, label.Purpose == LabelPurpose.PartNumber ? 0 : 1, LineClass.Label, stroke, false, LineJob.Label));
+            {
+                var points = settings.LabelsOnBack ? stroke.Select(q => new Vec2(sheetW - q.X, q.Y)).ToArray() : stroke;
+                lines.Add(new PendingLine(part, label.Purpose == LabelPurpose.PartNumber ? 0 : 1, LineClass.Label, points, false, labelJob));
+            }
 
         // Sheets: the lines in job order, parts in number order, each part's lines in edge order.
         var sheets = new List<Sheet>();
@@ -215,10 +248,21 @@ public static class SheetLayout
         {
             var onSheet = Enumerable.Range(0, partCount).Where(p => placements[p].Bin == sh).ToArray();
             utilisation[sh] = onSheet.Sum(p => outlines[p].Area) / (usableW * usableH);
-            var sheetLines = lines.Where(l => placements[l.Part].Bin == sh)
-                .OrderBy(l => l.Job).ThenBy(l => l.Part).ThenBy(l => l.Order).ThenBy(l => l.Class).ToList();
+            // Passes in job order; within a pass, classes in the writers' layer order (they write one layer
+            // per class in that order), so the order here is the order in the files.
+            var sorted = lines.Where(l => placements[l.Part].Bin == sh)
+                .OrderBy(l => l.Job).ThenBy(l => ClassRank(l.Class)).ThenBy(l => l.Part).ThenBy(l => l.Order).ToList();
+            // Within each pass and class, nearest line next: the front job starts at the sheet's top-left
+            // corner, the back job at its own top-left, which is the front's top-right.
+            var sheetLines = new List<PendingLine>();
+            Vec2 atFront = Vec2.Zero, atBack = new(sheetW, 0);
+            foreach (var group in sorted.GroupBy(l => (l.Job, l.Class)))
+            {
+                if (group.Key.Job is LineJob.BackLabel or LineJob.BackScore) sheetLines.AddRange(NearestFirst(group.ToList(), ref atBack));
+                else sheetLines.AddRange(NearestFirst(group.ToList(), ref atFront));
+            }
             var marks = settings.NeedsBackJob ? RegistrationMarks(sheetW, sheetH, margin) : [];
-            var front = marks.Concat(sheetLines.Where(l => l.Job != LineJob.BackScore).Select(l => new SheetLine(l.Class, l.Points, l.Closed))).ToArray();
+            var front = marks.Concat(sheetLines.Where(l => l.Job is not (LineJob.BackScore or LineJob.BackLabel)).Select(l => new SheetLine(l.Class, l.Points, l.Closed))).ToArray();
             foreach (var l in sheetLines)
             {
                 double len = PathLength(l.Points, l.Closed);
@@ -229,12 +273,12 @@ public static class SheetLayout
                     case LineJob.PerforationCut: perfCut += len; break;
                     case LineJob.Score: score += len; break;
                     case LineJob.BackScore: backScore += len; break;
-                    case LineJob.Label: labelLength += len; break;
+                    case LineJob.Label or LineJob.BackLabel: labelLength += len; break;
                 }
             }
             if (settings.NeedsBackJob)
             {
-                var back = marks.Concat(sheetLines.Where(l => l.Job == LineJob.BackScore)
+                var back = marks.Concat(sheetLines.Where(l => l.Job is LineJob.BackScore or LineJob.BackLabel)
                     .Select(l => new SheetLine(l.Class, l.Points.Select(q => new Vec2(sheetW - q.X, q.Y)).ToArray(), l.Closed))).ToArray();
                 travel += TravelLength(back);
                 sheets.Add(new Sheet(sh + 1, sheetW, sheetH, back) { Side = "back", Utilisation = utilisation[sh] });
@@ -301,6 +345,65 @@ public static class SheetLayout
         var orderedLabels = labels.OrderBy(l => l.Label.Sheet).ThenBy(l => l.Part).ThenBy(l => l.Label.Purpose).ThenBy(l => l.Label.Text, StringComparer.Ordinal)
             .Select(l => l.Label).ToArray();
         return new SheetLayoutResult(sheets.ToArray(), parts, seams, orderedLabels, figures);
+    }
+
+    /// <summary>Direction (radians, in [0, pi), model frame) of the part's longest crease family: mountain and
+    /// valley edges grouped by direction to the nearest tenth of a degree, summed by length; ties take the
+    /// smaller angle.</summary>
+    private static double LongestCreaseFamily(FlatPattern pattern, int[] partOf, int part, Vec2[] model)
+    {
+        var mesh = pattern.Folded;
+        var totals = new SortedDictionary<int, double>();
+        for (int e = 0; e < mesh.EdgeCount; e++)
+        {
+            if (!mesh.IsInterior(e) || partOf[mesh.EdgeFaceLeft[e]] != part || partOf[mesh.EdgeFaceRight[e]] != part) continue;
+            if (pattern.Role(e) is not (CreaseRole.Mountain or CreaseRole.Valley)) continue;
+            var (v0, v1) = pattern.Edge(e);
+            var d = model[v1] - model[v0];
+            double a = Math.Atan2(d.Y, d.X);
+            if (a < 0) a += Math.PI;
+            int bin = (int)Math.Round(a * 1800 / Math.PI) % 1800;
+            totals[bin] = totals.GetValueOrDefault(bin) + d.Length;
+        }
+        if (totals.Count == 0) return 0;
+        var best = totals.First();
+        foreach (var kv in totals) if (kv.Value > best.Value + 1e-9) best = kv;
+        return best.Key * Math.PI / 1800;
+    }
+
+    private static int ClassRank(LineClass c)
+    {
+        int i = LineStyleTable.FabricationOrder.ToList().IndexOf(c);
+        return i < 0 ? int.MaxValue : i;
+    }
+
+    /// <summary>Orders a pass greedily: from the head's position, the line whose start (or, for open lines, end)
+    /// is nearest goes next, open lines turned round when entered from their end. Ties keep the earlier line.</summary>
+    private static List<PendingLine> NearestFirst(List<PendingLine> group, ref Vec2 at)
+    {
+        var used = new bool[group.Count];
+        var result = new List<PendingLine>(group.Count);
+        for (int n = 0; n < group.Count; n++)
+        {
+            int best = -1; bool reverse = false; double bestD = double.PositiveInfinity;
+            for (int i = 0; i < group.Count; i++)
+            {
+                if (used[i]) continue;
+                var pts = group[i].Points;
+                double d = (pts[0] - at).Length;
+                if (d < bestD) { bestD = d; best = i; reverse = false; }
+                if (!group[i].Closed)
+                {
+                    double e = (pts[^1] - at).Length;
+                    if (e < bestD) { bestD = e; best = i; reverse = true; }
+                }
+            }
+            used[best] = true;
+            var line = reverse ? group[best] with { Points = group[best].Points.Reverse().ToArray() } : group[best];
+            result.Add(line);
+            at = line.Closed ? line.Points[0] : line.Points[^1];
+        }
+        return result;
     }
 
     /// <summary>Splits for the full usable area and for its halves each way, and keeps the split whose parts

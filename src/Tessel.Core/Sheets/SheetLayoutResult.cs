@@ -13,13 +13,18 @@ public enum LabelPurpose
 }
 
 /// <summary>Text to be written on a sheet with single-stroke glyphs.</summary>
-/// <param name="Sheet">Sheet number (1-based) on the front job.</param>
+/// <param name="Sheet">Sheet number (1-based).</param>
 /// <param name="Text">Upper-case letters and digits only.</param>
 /// <param name="Centre">Centre of the text block, mm (y down).</param>
 /// <param name="HeightMm">Cap height.</param>
 /// <param name="AngleRadians">Direction of the baseline from +x toward +y (clockwise as seen, since y is down);
 /// kept within (-pi/2, pi/2] so text never reads upside down.</param>
-public sealed record SheetLabel(int Sheet, string Text, Vec2 Centre, double HeightMm, double AngleRadians, LabelPurpose Purpose);
+public sealed record SheetLabel(int Sheet, string Text, Vec2 Centre, double HeightMm, double AngleRadians, LabelPurpose Purpose)
+{
+    /// <summary>Job the label is written in: "front", or "back" (then Centre and AngleRadians are in the
+    /// mirrored back job's coordinates, x' = W - x).</summary>
+    public string Side { get; init; } = "front";
+}
 
 /// <summary>One seam: a mesh edge along which the pattern was cut apart; a tab on one side, the same code on both.</summary>
 /// <param name="Code">Unique code printed on both edges.</param>

@@ -38,6 +38,10 @@ public class RectanglePackerTests
         var placed = RectanglePacker.Pack(items, 100, 40);
         Assert.True(placed[0].Turned);
         Assert.Throws<ArgumentException>(() => RectanglePacker.Pack(new[] { (120.0, 50.0) }, 100, 100));
+        // Held to its turning (grain), the same item cannot go in.
+        Assert.Throws<ArgumentException>(() => RectanglePacker.Pack(items, 100, 40, [true]));
+        var held = RectanglePacker.Pack(new[] { (90.0, 30.0), (30.0, 35.0) }, 100, 40, [true, true]);
+        Assert.All(held, p => Assert.False(p.Turned));
     }
 
     [Fact]

@@ -1,0 +1,112 @@
+using NetTopologySuite.Geometries;
+using Tessel.Core.Geometry;
+using Tessel.Core.Unfolding;
+
+namespace Tessel.Core.Sheets;
+
+/// <summary>Which face of the boards the hinge film or fabric is glued to.</summary>
+public enum HingeSide
+{
+    /// <summary>On the top side (the side the target's normal points to).</summary>
+    Top,
+    /// <summary>On the underside.</summary>
+    Bottom,
+}
+
+/// <summary>Settings for thick-panel output: rigid boards hinged on film or fabric.</summary>
+/// <param name="BoardThicknessMm">Board thickness t at model scale.</param>
+/// <param name="Hinge">Face the hinge layer is on.</param>
+/// <param name="InsideGapMm">Gap between boards where the hinge is on the inside of the fold
+/// (0.3-0.5 mm, fabrication.md [M]).</param>
+public sealed record ThickPanelSettings(double BoardThicknessMm, HingeSide Hinge = HingeSide.Top, double InsideGapMm = 0.4);
+
+/// <summary>Board panels for every facet, on the same sheets and in the same place as the crease layout.</summary>
+/// <param name="Sheets">One sheet per layout sheet (Side "panels"): panel outlines to cut, part outlines as
+/// annotation (the hinge layer's template).</param>
+/// <param name="Panels">#F panel outline of each facet in sheet mm (open ring); empty when the facet vanishes.</param>
+/// <param name="EdgeGapMm">#E total gap between the two boards at each edge (0 on the boundary).</param>
+/// <param name="Warnings">Facets that vanish at this board thickness.</param>
+public sealed record ThickPanelResult(Sheet[] Sheets, Vec2[][] Panels, double[] EdgeGapMm, string[] Warnings);
+
+/// <summary>Square-edged thick panels (fabrication.md "Thick panels"; Lang et al., Appl. Mech. Rev. 70(1),
+/// 2018): where the hinge lies on the outside of a fold of angle rho the boards must stand
+/// g = 2 t sin(rho/2) apart on the hinge face, so each board's edge moves back g/2; where it lies on the
+/// inside a small fixed gap suffices (also the least gap used on the outside, for nearly flat folds). Each facet's panel is its polygon with a strip of its own setback
+/// removed along every edge (NTS difference), so facets are taken as convex.</summary>
+public static class ThickPanels
+{
+    /// <summary>Least gap on the hinge face for square edges with the hinge outside a fold of angle rho (radians).</summary>
+    public static double OutsideGap(double thicknessMm, double rho) => 2 * thicknessMm * Math.Sin(Math.Abs(rho) / 2);
+
+    /// <summary>Builds the panels for a layout made from <paramref name="pattern"/>; fold angles come from
+    /// the pattern's folded mesh.</summary>
+    public static ThickPanelResult Build(FlatPattern pattern, SheetLayoutResult layout, ThickPanelSettings settings)
+    {
+        var mesh = pattern.Folded;
+        var gaps = new double[mesh.EdgeCount];
+        var edgeOf = new Dictionary<(int, int), int>();
+        for (int e = 0; e < mesh.EdgeCount; e++)
+        {
+            var (v0, v1) = pattern.Edge(e);
+            edgeOf[(v0, v1)] = e;
+            if (!mesh.IsInterior(e)) continue;
+            double rho = mesh.FoldAngle(e);
+            // A mountain (rho > 0) is convex on the top side: a top hinge is then on the outside.
+            bool hingeOutside = rho > 0 ? settings.Hinge == HingeSide.Top : settings.Hinge == HingeSide.Bottom;
+            gaps[e] = hingeOutside ? Math.Max(OutsideGap(settings.BoardThicknessMm, rho), settings.InsideGapMm) : settings.InsideGapMm;
+        }
+
+        var panels = new Vec2[mesh.FaceCount][];
+        var warnings = new List<string>();
+        var sheets = new List<Sheet>();
+        foreach (var sheetNumber in layout.Parts.Select(p => p.Sheet).Distinct().OrderBy(n => n))
+        {
+            var lines = new List<SheetLine>();
+            foreach (var part in layout.Parts.Where(p => p.Sheet == sheetNumber).OrderBy(p => p.Number))
+            {
+                lines.Add(new SheetLine(LineClass.Annotation, part.Outline, true));
+                foreach (int f in part.Faces)
+                {
+                    var face = mesh.Faces[f];
+                    var ring = face.Select(v => part.VertexPositions[Array.BinarySearch(part.Vertices, v)]).ToArray();
+                    NetTopologySuite.Geometries.Geometry panel = NtsGeometry.Polygon(ring);
+                    double reach = ring.Max(a => ring.Max(b => (b - a).Length));
+                    var centre = PatternSplitter.Centroid(ring);
+                    for (int k = 0; k < face.Length; k++)
+                    {
+                        int a = face[k], b = face[(k + 1) % face.Length];
+                        double setback = gaps[edgeOf[a < b ? (a, b) : (b, a)]] / 2;
+                        if (setback <= 0) continue;
+                        panel = panel.Difference(Strip(ring[k], ring[(k + 1) % face.Length], setback, reach, centre));
+                    }
+                    if (panel is Polygon p && !p.IsEmpty && p.Area > 1e-6)
+                    {
+                        panels[f] = NtsGeometry.OpenRing(p.ExteriorRing);
+                        lines.Add(new SheetLine(LineClass.CutOutline, panels[f], true));
+                    }
+                    else
+                    {
+                        panels[f] = [];
+                        warnings.Add($"facet {f} vanishes at a board thickness of {settings.BoardThicknessMm} mm");
+                    }
+                }
+            }
+            // Annotations first, then the cuts, as on the crease sheets.
+            var ordered = lines.Where(l => l.Class == LineClass.Annotation).Concat(lines.Where(l => l.Class != LineClass.Annotation)).ToArray();
+            var like = layout.Sheets.First(s => s.Number == sheetNumber);
+            sheets.Add(new Sheet(sheetNumber, like.WidthMm, like.HeightMm, ordered) { Side = "panels", Utilisation = like.Utilisation });
+        }
+        for (int f = 0; f < panels.Length; f++) panels[f] ??= [];
+        return new ThickPanelResult(sheets.ToArray(), panels, gaps, warnings.ToArray());
+    }
+
+    /// <summary>The band of the given depth along the whole line through p and q, on the side of <paramref name="inside"/>.</summary>
+    private static Polygon Strip(Vec2 p, Vec2 q, double depth, double reach, Vec2 inside)
+    {
+        var u = (q - p).Normalized();
+        var n = u.Perp;
+        if (Vec2.Dot(inside - p, n) < 0) n = -n;
+        var a = p - reach * u; var b = q + reach * u;
+        return NtsGeometry.Polygon([a, b, b + depth * n, a + depth * n]);
+    }
+}
