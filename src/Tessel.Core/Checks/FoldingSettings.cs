@@ -14,7 +14,7 @@ namespace Tessel.Core.Checks;
 /// <param name="MaxCorrectorIterations">Newton steps per continuation step before the step is halved.</param>
 /// <param name="RankTolerance">Relative singular-value threshold for the null space used by the predictor.</param>
 public sealed record FoldingSettings(
-    double StepProgress = 0.1,
+    double StepProgress = 0.25,
     double[]? KeyframeProgress = null,
     double NearFlatFoldAngleDegrees = 1.0,
     double MaxProgress = 1.25,

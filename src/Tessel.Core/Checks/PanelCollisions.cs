@@ -4,31 +4,6 @@ using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Checks;
 
-/// <summary>How two panels collide.</summary>
-public enum CollisionKind
-{
-    /// <summary>Panels with no common vertex intersect (Moller 1997 triangle test).</summary>
-    Crossing,
-    /// <summary>Panels sharing a vertex or a crease overlap beyond it: folded through each other, or folded flat
-    /// (180 degrees) onto each other.</summary>
-    OverlapAtSharedCorner,
-}
-
-/// <summary>A pair of colliding panels (face indices, FaceA &lt; FaceB).</summary>
-public sealed record PanelCollision(int FaceA, int FaceB, CollisionKind Kind);
-
-/// <summary>Panel collisions of one state.</summary>
-/// <param name="Pairs">Colliding face pairs, sorted by (FaceA, FaceB).</param>
-/// <param name="TrianglePairsTested">Narrow-phase tests after the box tree (a cost figure).</param>
-/// <param name="Elapsed">Wall time.</param>
-public sealed record CollisionResult(IReadOnlyList<PanelCollision> Pairs, int TrianglePairsTested, TimeSpan Elapsed)
-{
-    public int Count => Pairs.Count;
-}
-
-/// <summary>Panel collisions at a keyframe of a folding path.</summary>
-public sealed record PathCollisionFrame(double Progress, CollisionResult Collisions);
-
 /// <summary>Finds panels of a folded crease mesh that pass through each other. Panels are triangulated (fans
 /// from their first corner); triangles of the same panel are never compared; triangles of panels that share a
 /// vertex or a crease are compared by the corner test (they touch by construction and only count when they

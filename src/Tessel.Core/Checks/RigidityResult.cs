@@ -10,7 +10,7 @@ namespace Tessel.Core.Checks;
 /// <param name="LargestSingularValue">Of J in units of the mean edge length (dimensionless).</param>
 /// <param name="SmallestKeptSingularValue">Last singular value above the threshold, relative to the largest.</param>
 /// <param name="LargestDroppedSingularValue">First singular value below the threshold, relative to the largest
-/// (0 when J has fewer rows than its rank deficit needs).</param>
+/// (0 when all dropped values are implicit zeros of a J with fewer rows than columns).</param>
 /// <param name="GapRatio">SmallestKept / LargestDropped: how clearly the rank is revealed (large is clear).</param>
 /// <param name="Method">"dense-svd" or "shift-invert-subspace".</param>
 /// <param name="Elapsed">Wall time of the computation.</param>

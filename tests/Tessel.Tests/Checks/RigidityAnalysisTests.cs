@@ -62,6 +62,19 @@ public class RigidityAnalysisTests
     }
 
     [Fact]
+    public void AutoMethodSwitchesToShiftInvertForLargerSheets()
+    {
+        // 8x8 Miura cells: 867 unknowns, above the dense limit of 600; still one DOF (Tachi 2009), and the
+        // kept/dropped singular values straddle the tolerance by orders of magnitude (about 7e-3 vs 1e-15 here).
+        var r = RigidityAnalysis.DegreesOfFreedom(CheckMeshes.Miura(8, 8));
+        Assert.Equal("shift-invert-subspace", r.Method);
+        Assert.Equal(867, r.Unknowns);
+        Assert.Equal(1, r.DegreesOfFreedom);
+        Assert.True(r.SmallestKeptSingularValue > 1e-3 && r.LargestDroppedSingularValue < 1e-10,
+            $"kept {r.SmallestKeptSingularValue}, dropped {r.LargestDroppedSingularValue}");
+    }
+
+    [Fact]
     public void FlatMiuraIsABranchPointWithExtraMobility()
     {
         // At theta = 0 every crease can start to fold: the rank drops (geometry.md section 4, derived).
