@@ -133,7 +133,7 @@ public static class SheetLayout
             if (offGrain.Count > 0)
                 warnings.Add($"{offGrain.Count} part(s) fit the sheet only across the grain: {string.Join(", ", offGrain)}");
         }
-        var placements = RectanglePacker.Pack(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing, fixedTurn);
+        var placements = RectanglePacker.PackBest(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing, fixedTurn);
         int sheetCount = partCount == 0 ? 0 : placements.Max(pl => pl.Bin) + 1;
         var angles = new double[partCount];
         var offsets = new Vec2[partCount];
@@ -428,7 +428,7 @@ public static class SheetLayout
                 items[p] = (box.Width + allowance + spacing, box.Height + allowance + spacing);
             }
             int sheets;
-            try { sheets = RectanglePacker.Pack(items, usableW + spacing, usableH + spacing).Max(pl => pl.Bin) + 1; }
+            try { sheets = RectanglePacker.PackBest(items, usableW + spacing, usableH + spacing).Max(pl => pl.Bin) + 1; }
             catch (ArgumentException) { sheets = int.MaxValue - 1; }
             if (sheets < bestSheets || (sheets == bestSheets && parts < bestParts)) { best = partOf; bestSheets = sheets; bestParts = parts; }
         }
