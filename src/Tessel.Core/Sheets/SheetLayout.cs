@@ -406,13 +406,13 @@ public static class SheetLayout
         return result;
     }
 
-    /// <summary>Splits for the full usable area and for its halves each way, and keeps the split whose parts
+    /// <summary>Splits for the full usable area, its halves and thirds each way and its quarter, and keeps the split whose parts
     /// (boxed with the tab allowance) pack onto the fewest sheets, then the one with fewest parts: smaller
     /// parts sometimes pair up on a sheet where larger ones each need their own.</summary>
     private static int[] ChooseSplit(Vec2[][] facePolys, int[][] neighbours, double usableW, double usableH, double allowance, double spacing)
     {
         double w = usableW - allowance, h = usableH - allowance;
-        (double W, double H)[] targets = [(w, h), (w, h / 2), (w / 2, h)];
+        (double W, double H)[] targets = [(w, h), (w, h / 2), (w / 2, h), (w / 2, h / 2), (w, h / 3), (w / 3, h)];
         int[]? best = null; int bestSheets = int.MaxValue, bestParts = int.MaxValue;
         foreach (var (tw, th) in targets)
         {
