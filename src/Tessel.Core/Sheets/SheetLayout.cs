@@ -18,6 +18,9 @@ public static class SheetLayout
     /// <summary>Which pass of the laser a line belongs to; the enum order is the cutting order.</summary>
     private enum LineJob { Annotation, Label, BackLabel, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
 
+    /// <summary>Labels smaller than this (cap height, mm) are warned about as hard to read.</summary>
+    public const double MinimumLegibleLabelMm = 1.2;
+
     /// <summary>Lays out <paramref name="pattern"/> (metres, full scale) on sheets.</summary>
     /// <exception cref="ArgumentException">When the margins and tab allowance leave no room on the sheet.</exception>
     /// <exception cref="InvalidOperationException">When a single facet does not fit the sheet at this scale.</exception>
@@ -297,6 +300,10 @@ public static class SheetLayout
         }
         if (narrow > 0)
             warnings.Add($"{narrow} facet(s) narrower than {material.MinFacetWidthMm:0.##} mm (10 x thickness of {material.Name}); narrowest {narrowest:0.##} mm (face {narrowestFace})");
+        // Single-stroke capitals below about 1.2 mm blur under a laser spot of 0.1-0.2 mm (fabrication.md [CP/M]).
+        var tiny = labels.Where(l => l.Label.HeightMm < MinimumLegibleLabelMm).Select(l => l.Label.Text).ToArray();
+        if (tiny.Length > 0)
+            warnings.Add($"{tiny.Length} label(s) shrunk below {MinimumLegibleLabelMm} mm to fit their facet: {string.Join(", ", tiny.Take(12))}{(tiny.Length > 12 ? ", ..." : "")}");
         if (shortPerforations > 0)
             warnings.Add($"{shortPerforations} perforated crease(s) too short for two cut/bridge cycles: made one centred slot or a score");
         int strained = 0; double worstStrain = 0;
