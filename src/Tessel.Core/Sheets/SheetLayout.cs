@@ -18,6 +18,9 @@ public static class SheetLayout
     /// <summary>Which pass of the laser a line belongs to; the enum order is the cutting order.</summary>
     private enum LineJob { Annotation, Label, BackLabel, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
 
+    /// <summary>Labels smaller than this (cap height, mm) are warned about as hard to read.</summary>
+    public const double MinimumLegibleLabelMm = 1.2;
+
     /// <summary>Lays out <paramref name="pattern"/> (metres, full scale) on sheets.</summary>
     /// <exception cref="ArgumentException">When the margins and tab allowance leave no room on the sheet.</exception>
     /// <exception cref="InvalidOperationException">When a single facet does not fit the sheet at this scale.</exception>
@@ -133,7 +136,7 @@ public static class SheetLayout
             if (offGrain.Count > 0)
                 warnings.Add($"{offGrain.Count} part(s) fit the sheet only across the grain: {string.Join(", ", offGrain)}");
         }
-        var placements = RectanglePacker.Pack(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing, fixedTurn);
+        var placements = RectanglePacker.PackBest(boxes.Select(b => (b.Width + spacing, b.Height + spacing)).ToArray(), usableW + spacing, usableH + spacing, fixedTurn);
         int sheetCount = partCount == 0 ? 0 : placements.Max(pl => pl.Bin) + 1;
         var angles = new double[partCount];
         var offsets = new Vec2[partCount];
@@ -297,6 +300,10 @@ public static class SheetLayout
         }
         if (narrow > 0)
             warnings.Add($"{narrow} facet(s) narrower than {material.MinFacetWidthMm:0.##} mm (10 x thickness of {material.Name}); narrowest {narrowest:0.##} mm (face {narrowestFace})");
+        // Single-stroke capitals below about 1.2 mm blur under a laser spot of 0.1-0.2 mm (fabrication.md [CP/M]).
+        var tiny = labels.Where(l => l.Label.HeightMm < MinimumLegibleLabelMm).Select(l => l.Label.Text).ToArray();
+        if (tiny.Length > 0)
+            warnings.Add($"{tiny.Length} label(s) shrunk below {MinimumLegibleLabelMm} mm to fit their facet: {string.Join(", ", tiny.Take(12))}{(tiny.Length > 12 ? ", ..." : "")}");
         if (shortPerforations > 0)
             warnings.Add($"{shortPerforations} perforated crease(s) too short for two cut/bridge cycles: made one centred slot or a score");
         int strained = 0; double worstStrain = 0;
@@ -406,13 +413,13 @@ public static class SheetLayout
         return result;
     }
 
-    /// <summary>Splits for the full usable area and for its halves each way, and keeps the split whose parts
+    /// <summary>Splits for the full usable area, its halves and thirds each way and its quarter, and keeps the split whose parts
     /// (boxed with the tab allowance) pack onto the fewest sheets, then the one with fewest parts: smaller
     /// parts sometimes pair up on a sheet where larger ones each need their own.</summary>
     private static int[] ChooseSplit(Vec2[][] facePolys, int[][] neighbours, double usableW, double usableH, double allowance, double spacing)
     {
         double w = usableW - allowance, h = usableH - allowance;
-        (double W, double H)[] targets = [(w, h), (w, h / 2), (w / 2, h)];
+        (double W, double H)[] targets = [(w, h), (w, h / 2), (w / 2, h), (w / 2, h / 2), (w, h / 3), (w / 3, h)];
         int[]? best = null; int bestSheets = int.MaxValue, bestParts = int.MaxValue;
         foreach (var (tw, th) in targets)
         {
@@ -428,7 +435,7 @@ public static class SheetLayout
                 items[p] = (box.Width + allowance + spacing, box.Height + allowance + spacing);
             }
             int sheets;
-            try { sheets = RectanglePacker.Pack(items, usableW + spacing, usableH + spacing).Max(pl => pl.Bin) + 1; }
+            try { sheets = RectanglePacker.PackBest(items, usableW + spacing, usableH + spacing).Max(pl => pl.Bin) + 1; }
             catch (ArgumentException) { sheets = int.MaxValue - 1; }
             if (sheets < bestSheets || (sheets == bestSheets && parts < bestParts)) { best = partOf; bestSheets = sheets; bestParts = parts; }
         }

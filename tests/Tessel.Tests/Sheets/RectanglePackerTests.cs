@@ -44,12 +44,39 @@ public class RectanglePackerTests
         Assert.All(held, p => Assert.False(p.Turned));
     }
 
+    [Theory]
+    [InlineData(MaxRectsRule.BestShortSideFit)]
+    [InlineData(MaxRectsRule.BestLongSideFit)]
+    [InlineData(MaxRectsRule.BestAreaFit)]
+    [InlineData(MaxRectsRule.BottomLeft)]
+    public void EveryRuleTilesFourQuartersAndKeepsItemsApart(MaxRectsRule rule)
+    {
+        var quarters = Enumerable.Repeat((50.0, 50.0), 4).ToArray();
+        var placed = RectanglePacker.Pack(quarters, 100, 100, null, rule, it => it.W * it.H);
+        Assert.All(placed, p => Assert.Equal(0, p.Bin));
+        AssertDisjointAndInside(quarters, placed, 100, 100);
+        var items = new List<(double, double)>();
+        for (int i = 0; i < 30; i++) items.Add((10 + (i * 37 % 50), 8 + (i * 53 % 40)));
+        AssertDisjointAndInside(items, RectanglePacker.Pack(items, 120, 90, null, rule, it => it.W + it.H), 120, 90);
+    }
+
+    [Fact]
+    public void BestOfSeveralRulesIsNoWorseThanAnyOne()
+    {
+        var items = new List<(double, double)>();
+        for (int i = 0; i < 40; i++) items.Add((15 + (i * 29 % 60), 10 + (i * 41 % 45)));
+        int best = RectanglePacker.PackBest(items, 120, 90).Max(p => p.Bin) + 1;
+        foreach (var rule in Enum.GetValues<MaxRectsRule>())
+            Assert.True(best <= RectanglePacker.Pack(items, 120, 90, null, rule, it => it.W * it.H).Max(p => p.Bin) + 1);
+        AssertDisjointAndInside(items, RectanglePacker.PackBest(items, 120, 90), 120, 90);
+    }
+
     [Fact]
     public void MixedItemsUseFewBinsWithoutOverlap()
     {
         var items = new List<(double, double)>();
         for (int i = 0; i < 30; i++) items.Add((10 + (i * 37 % 50), 8 + (i * 53 % 40)));
-        var placed = RectanglePacker.Pack(items, 120, 90);
+        var placed = RectanglePacker.PackBest(items, 120, 90);
         AssertDisjointAndInside(items, placed, 120, 90);
         double area = items.Sum(it => it.Item1 * it.Item2);
         int bins = placed.Max(p => p.Bin) + 1;

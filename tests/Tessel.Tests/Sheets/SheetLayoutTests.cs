@@ -248,6 +248,9 @@ public class SheetLayoutTests
         Assert.Equal(small.Folded.FaceCount, layout.Figures.NarrowFacetCount);
         Assert.Equal(1, layout.Figures.StrainedEdgeCount);
         Assert.Contains(layout.Figures.Warnings, w => w.Contains("narrower than 4 mm"));
+        // The part number had to shrink to 0.3 of a 2.6 mm facet: under the legibility floor.
+        Assert.Contains(layout.Figures.Warnings, w => w.Contains("label(s) shrunk below 1.2 mm"));
+        Assert.DoesNotContain(CardLayout.Figures.Warnings, w => w.Contains("shrunk below"));
         Assert.Equal(1, layout.Figures.PartCount);
         Assert.Empty(layout.Seams);
     }
