@@ -62,7 +62,9 @@ public static class TargetFactory
         }
         catch (FormulaSyntaxError e)
         {
-            throw new JobError("target.formula", $"{e.Message} in \"{text}\"");
+            // A long formula is quoted by its start; the column locates the problem.
+            string quoted = text.Length <= 80 ? text : text[..77] + "...";
+            throw new JobError("target.formula", $"{e.Message} in \"{quoted}\"");
         }
     }
 
