@@ -21,13 +21,31 @@ public static partial class JobLoader
     public static Job Load(string path)
     {
         string text;
-        try { text = File.ReadAllText(path, Encoding.UTF8); }
+        try { text = ReadBounded(path); }
         catch (FileNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
         catch (DirectoryNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         { throw new JobError(path, $"cannot read the job file ({e.Message})"); }
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? Directory.GetCurrentDirectory();
         return Parse(text, Path.GetFileName(path), dir);
+    }
+
+    /// <summary>Largest job file read, in bytes. Job files are a few kilobytes of text.</summary>
+    public const int MaxJobFileBytes = 4 * 1024 * 1024;
+
+    /// <summary>Reads at most <see cref="MaxJobFileBytes"/> (so a huge file or an endless device such as
+    /// /dev/zero is refused rather than exhausting memory), then decodes as UTF-8, honouring a
+    /// UTF-8, UTF-16 or UTF-32 byte order mark.</summary>
+    private static string ReadBounded(string path)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+        var buffer = new byte[MaxJobFileBytes + 1];
+        int total = 0, n;
+        while (total < buffer.Length && (n = stream.Read(buffer, total, buffer.Length - total)) > 0) total += n;
+        if (total > MaxJobFileBytes)
+            throw new JobError(path, $"is larger than {MaxJobFileBytes / (1024 * 1024)} MB, which no job file is; check that this is the job file");
+        using var reader = new StreamReader(new MemoryStream(buffer, 0, total), Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
+        return reader.ReadToEnd();
     }
 
     /// <summary>Parses job text. <paramref name="sourceName"/> prefixes syntax errors

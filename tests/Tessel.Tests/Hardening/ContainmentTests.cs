@@ -131,3 +131,38 @@ public class ContainmentTests
         Assert.StartsWith("tessel: target.onload: unknown field", bad.Err);
     }
 }
+
+/// <summary>Job paths that are not ordinary small files.</summary>
+public class OddJobFileTests
+{
+    [Fact]
+    public void AnOversizedJobFileIsRefusedWithoutReadingItAll()
+    {
+        string dir = TestPaths.NewTempFolder();
+        string file = Path.Combine(dir, "big.json");
+        using (var f = File.Create(file)) f.SetLength(Tessel.Core.Jobs.JobLoader.MaxJobFileBytes + 1L);
+        var r = CliHarness.Run("validate", file);
+        Assert.Equal(ExitCodes.BadInput, r.Code);
+        Assert.Equal($"tessel: {file}: is larger than 4 MB, which no job file is; check that this is the job file", r.Err.TrimEnd());
+    }
+
+    [Fact]
+    public void AnEndlessDeviceIsRefusedNotReadForever()
+    {
+        if (!File.Exists("/dev/zero")) return; // not a Unix-like system
+        var r = CliHarness.Run("validate", "/dev/zero");
+        Assert.False(r.Hung);
+        Assert.Equal(ExitCodes.BadInput, r.Code);
+        Assert.StartsWith("tessel: /dev/zero: is larger than 4 MB", r.Err);
+    }
+
+    [Fact]
+    public void AFolderGivenAsTheJobIsAClearError()
+    {
+        string dir = TestPaths.NewTempFolder();
+        var r = CliHarness.Run("validate", dir);
+        Assert.Equal(ExitCodes.BadInput, r.Code);
+        Assert.Single(r.Err.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+        Assert.StartsWith($"tessel: {dir}: ", r.Err);
+    }
+}
