@@ -14,9 +14,25 @@ public sealed class JobError : Exception
 
     /// <summary>Creates an error located at <paramref name="where"/>.</summary>
     public JobError(string where, string problem, Exception? inner = null)
-        : base($"{where}: {problem}", inner)
+        : base($"{OneLine(where)}: {OneLine(problem)}", inner)
     {
-        Where = where;
-        Problem = problem;
+        Where = OneLine(where);
+        Problem = OneLine(problem);
     }
+
+    /// <summary>Messages quote user text (a kind, a name, a formula); control characters and line
+    /// separators in it are written as escapes so that the error stays one line.</summary>
+    private static string OneLine(string s)
+    {
+        if (!s.Any(IsBreaking)) return s;
+        var sb = new System.Text.StringBuilder(s.Length + 8);
+        foreach (char c in s)
+        {
+            if (!IsBreaking(c)) sb.Append(c);
+            else sb.Append(c switch { '\n' => "\\n", '\r' => "\\r", '\t' => "\\t", _ => $"\\u{(int)c:x4}" });
+        }
+        return sb.ToString();
+    }
+
+    private static bool IsBreaking(char c) => char.IsControl(c) || c is '\u2028' or '\u2029';
 }

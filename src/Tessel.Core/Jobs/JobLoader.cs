@@ -21,13 +21,31 @@ public static partial class JobLoader
     public static Job Load(string path)
     {
         string text;
-        try { text = File.ReadAllText(path, Encoding.UTF8); }
+        try { text = ReadBounded(path); }
         catch (FileNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
         catch (DirectoryNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
         { throw new JobError(path, $"cannot read the job file ({e.Message})"); }
         string dir = Path.GetDirectoryName(Path.GetFullPath(path)) ?? Directory.GetCurrentDirectory();
         return Parse(text, Path.GetFileName(path), dir);
+    }
+
+    /// <summary>Largest job file read, in bytes. Job files are a few kilobytes of text.</summary>
+    public const int MaxJobFileBytes = 4 * 1024 * 1024;
+
+    /// <summary>Reads at most <see cref="MaxJobFileBytes"/> (so a huge file or an endless device such as
+    /// /dev/zero is refused rather than exhausting memory), then decodes as UTF-8, honouring a
+    /// UTF-8, UTF-16 or UTF-32 byte order mark.</summary>
+    private static string ReadBounded(string path)
+    {
+        using var stream = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read);
+        var buffer = new byte[MaxJobFileBytes + 1];
+        int total = 0, n;
+        while (total < buffer.Length && (n = stream.Read(buffer, total, buffer.Length - total)) > 0) total += n;
+        if (total > MaxJobFileBytes)
+            throw new JobError(path, $"is larger than {MaxJobFileBytes / (1024 * 1024)} MB, which no job file is; check that this is the job file");
+        using var reader = new StreamReader(new MemoryStream(buffer, 0, total), Encoding.UTF8, detectEncodingFromByteOrderMarks: true);
+        return reader.ReadToEnd();
     }
 
     /// <summary>Parses job text. <paramref name="sourceName"/> prefixes syntax errors
@@ -67,6 +85,7 @@ public static partial class JobLoader
             int seed = root.Integer("seed") ?? 1;
             var target = ReadTarget(root.Object("target"));
             var tess = ReadTessellation(root.Object("tessellation"));
+            CheckMemory(target, tess);
             var fitting = ReadFitting(root.Object("fitting"));
             var fab = ReadFabrication(root.Object("fabrication"));
             var outputs = ReadOutputs(root.Object("outputs"));
@@ -239,6 +258,10 @@ public static partial class JobLoader
         r.RejectUnknown();
         CheckChoice(r.PathOf("family"), family, Catalog.Families.Select(f => f.Name), family.Contains("egg", StringComparison.OrdinalIgnoreCase)
             ? "the egg-box pattern is not developable and cannot be folded from one sheet; " : "");
+        if (cx > 500 && cy is > 0 && EstimatedBytes(family, cx.Value, cy.Value) is var (v, bytes) && bytes > MemoryLimitBytes)
+            throw new JobError(r.PathOf("cellsX"), $"{Big(cx.Value)} x {Big(cy.Value)} {family} cells would have about {Big(v)} vertices and need about {Gb(bytes)} GB of memory; the limit is {Gb(MemoryLimitBytes)} GB, so use fewer cells (tessellation.cellsX and tessellation.cellsY)");
+        if (cy > 500 && cx is > 0 && EstimatedBytes(family, cx.Value, cy.Value) is var (v2, bytes2) && bytes2 > MemoryLimitBytes)
+            throw new JobError(r.PathOf("cellsY"), $"{Big(cx.Value)} x {Big(cy.Value)} {family} cells would have about {Big(v2)} vertices and need about {Gb(bytes2)} GB of memory; the limit is {Gb(MemoryLimitBytes)} GB, so use fewer cells (tessellation.cellsX and tessellation.cellsY)");
         if (cx is not null && (cx < 1 || cx > 500)) throw new JobError(r.PathOf("cellsX"), $"must be a whole number from 1 to 500 (got {cx})");
         if (cy is not null && (cy < 1 || cy > 500)) throw new JobError(r.PathOf("cellsY"), $"must be a whole number from 1 to 500 (got {cy})");
         Positive(r.PathOf("cellSize"), size, "length in the target's units", required: false);
@@ -248,6 +271,71 @@ public static partial class JobLoader
         if (!(share >= 0 && share <= 1)) throw new JobError(r.PathOf("flatDiagonalShare"), $"must be a share from 0 to 1 (got {Format(share)})");
         return new TessellationSpec(family, cx, cy, size, sector, depth, orient, share);
     }
+
+    /// <summary>Memory limit for one build, in bytes; see <see cref="EstimatedBytes"/>.</summary>
+    public const double MemoryLimitBytes = 4.0 * 1024 * 1024 * 1024;
+
+    /// <summary>Working memory per pattern vertex: 3 unknowns, about 6 residual rows of about 24
+    /// non-zeros each in the Jacobian, the normal-equation factor with its fill, and copies kept per
+    /// start and along the folding path. A deliberate over-estimate: the job is refused before any
+    /// of it is allocated.</summary>
+    public const double BytesPerVertex = 4096;
+
+    /// <summary>Pattern vertices per cell of each family: the degree-4 and degree-6 families place a
+    /// 2 x 2 block of vertices per cell, free-triangulated quads one.</summary>
+    private static double VerticesPerCell(string family, double cx, double cy) => family switch
+    {
+        "free-triangulated" => (cx + 1) * (cy + 1),
+        _ => (2 * cx + 1) * (2 * cy + 1),
+    };
+
+    /// <summary>Estimated vertices and bytes for a pattern of <paramref name="cellsX"/> x
+    /// <paramref name="cellsY"/> cells of <paramref name="family"/>.</summary>
+    public static (double Vertices, double Bytes) EstimatedBytes(string family, double cellsX, double cellsY)
+    {
+        double v = VerticesPerCell(family, cellsX, cellsY);
+        return (v, v * BytesPerVertex);
+    }
+
+    /// <summary>Refuses patterns whose cell counts (given, or derived from cellSize and the footprint)
+    /// would need more memory than <see cref="MemoryLimitBytes"/>, before anything is built.</summary>
+    private static void CheckMemory(TargetSpec target, TessellationSpec tess)
+    {
+        double? extentX = null, extentY = null;
+        if (target.Footprint is { } f)
+        {
+            if (f.Corners is { } c)
+            {
+                extentX = c.Max(p => p[0]) - c.Min(p => p[0]);
+                extentY = c.Max(p => p[1]) - c.Min(p => p[1]);
+            }
+            else { extentX = f.Width; extentY = f.Depth; }
+        }
+        else if (target.Kind == "height-map") { extentX = target.ImageWidth; extentY = target.ImageDepth; }
+        static double? Derived(double? extent, double? size) =>
+            extent is double e && size is double s ? Math.Max(1, Math.Round(e / s)) : null;
+        double? cx = tess.CellsX ?? Derived(extentX, tess.CellSize);
+        double? cy = tess.CellsY ?? Derived(extentY, tess.CellSize);
+        if (cx is not double nx || cy is not double ny) return; // a mesh without a footprint: known only once it is read
+        var (vertices, bytes) = EstimatedBytes(tess.Family, nx, ny);
+        if (bytes <= MemoryLimitBytes) return;
+        bool derived = tess.CellsX is null || tess.CellsY is null;
+        string where = derived ? "tessellation.cellSize" : "tessellation.cellsX";
+        string counts = $"{Big(nx)} x {Big(ny)} {tess.Family} cells";
+        throw new JobError(where,
+            $"{counts}{(derived ? $" (footprint / cellSize {Format(tess.CellSize ?? 0)})" : "")} would have about {Big(vertices)} vertices and need about {Gb(bytes)} GB of memory; "
+            + $"the limit is {Gb(MemoryLimitBytes)} GB, so use fewer cells (tessellation.cellsX and tessellation.cellsY){(derived ? " or a larger tessellation.cellSize" : "")}");
+    }
+
+    private static string Big(double v) => v < 1e15
+        ? v.ToString("#,0", System.Globalization.CultureInfo.InvariantCulture)
+        : v.ToString("0.##e0", System.Globalization.CultureInfo.InvariantCulture);
+
+    private static string Gb(double bytes) => (bytes / (1024.0 * 1024 * 1024)) switch
+    {
+        < 10 and var g => g.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture),
+        var g => Big(Math.Round(g)),
+    };
 
     private static FittingSpec ReadFitting(FieldReader r)
     {
@@ -356,6 +444,16 @@ public static partial class JobLoader
         Positive(t.PathOf("widthMm"), tabWidth, "length in mm", required: true);
         if (!(taper > 0 && taper < 90)) throw new JobError(t.PathOf("taperDeg"), $"must be an angle between 0 and 90 degrees, exclusive (got {Format(taper)})");
         Positive(r.PathOf("hairlineMm"), hairline, "length in mm", required: true);
+        // Settings that cannot produce a cuttable sheet, whatever the model.
+        double usable = Math.Min(sheet.WidthMm, sheet.HeightMm) - 2 * margin;
+        if (kerf > spacing)
+            throw new JobError(r.PathOf("kerfMm"), $"the cut ({Format(kerf)} mm wide) is wider than the gap between parts (spacingMm {Format(spacing)}), so neighbouring parts would be cut into each other; make spacingMm at least kerfMm");
+        if (spacing >= usable)
+            throw new JobError(r.PathOf("spacingMm"), $"the gap between parts ({Format(spacing)} mm) is as wide as the usable sheet ({Format(usable)} mm inside the margins); use a much smaller spacing");
+        if (tabWidth >= usable / 2)
+            throw new JobError(t.PathOf("widthMm"), $"a {Format(tabWidth)} mm glue tab takes half or more of the usable sheet ({Format(usable)} mm inside the margins); glue tabs are a few millimetres wide, e.g. 6");
+        if (hairline >= usable)
+            throw new JobError(r.PathOf("hairlineMm"), $"a {Format(hairline)} mm line is as wide as the usable sheet ({Format(usable)} mm); cut and fold lines are hairlines, e.g. 0.05");
         return new FabricationSpec(scale, material, new FoldMethodSpec(mountain, valley), sheet, orientation,
             margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers);
     }

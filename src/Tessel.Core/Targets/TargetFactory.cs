@@ -38,8 +38,17 @@ public static class TargetFactory
         if (bad is { } b)
         {
             string field = spec.Kind switch { "formula" => "target.formula", "mesh" => "target.mesh", "height-map" => "target.footprint", _ => "target.footprint" };
+            // Mesh and image problems name the file, so the message says which input to fix.
+            string? file = spec.Kind switch { "mesh" => spec.Mesh, "height-map" => spec.Image, _ => null };
+            string fix = spec.Kind switch
+            {
+                "formula" => "change the formula",
+                "mesh" => "check that the mesh covers the footprint in plan",
+                "height-map" => "check the image and its imageWidth and imageDepth",
+                _ => "change the parameters",
+            };
             throw new JobError(field,
-                $"{b.What} at x = {Fmt(b.X / s)}, y = {Fmt(b.Y / s)} {spec.Units} inside the footprint; change the {(spec.Kind == "formula" ? "formula" : "parameters")} or shrink the footprint");
+                $"{(file is null ? "" : Path.GetFileName(file) + ": ")}{b.What} at x = {Fmt(b.X / s)}, y = {Fmt(b.Y / s)} {spec.Units} inside the footprint; {fix} or shrink the footprint");
         }
         return target;
     }
@@ -62,7 +71,9 @@ public static class TargetFactory
         }
         catch (FormulaSyntaxError e)
         {
-            throw new JobError("target.formula", $"{e.Message} in \"{text}\"");
+            // A long formula is quoted by its start; the column locates the problem.
+            string quoted = text.Length <= 80 ? text : text[..77] + "...";
+            throw new JobError("target.formula", $"{e.Message} in \"{quoted}\"");
         }
     }
 

@@ -18,14 +18,25 @@ public static class FormulaParser
     public static readonly IReadOnlyList<string> Functions =
         ["sin", "cos", "tan", "asin", "acos", "atan", "exp", "log", "sqrt", "abs"];
 
+    /// <summary>Longest formula accepted, in characters.</summary>
+    public const int MaxLength = 10_000;
+
+    /// <summary>Deepest formula accepted: operations nested inside one another (a chain such as x+x+x
+    /// counts one level per operator, a minus sign or a function call one level) and, separately,
+    /// parentheses, calls and signs open at once. Parsing and
+    /// evaluation recurse, so this bound keeps them far from the thread's stack limit.</summary>
+    public const int MaxDepth = 200;
+
     /// <summary>Parses <paramref name="text"/>.</summary>
     /// <exception cref="FormulaSyntaxError">With the 1-based column and what was expected.</exception>
     public static FormulaNode Parse(string text)
     {
+        if (text.Length > MaxLength)
+            throw new FormulaSyntaxError(MaxLength + 1, $"the end of the formula (formulas are limited to {MaxLength} characters)", $"{text.Length} characters");
         var p = new State(text);
         p.SkipSpace();
         if (p.AtEnd) throw new FormulaSyntaxError(1, "a formula in x and y", "nothing");
-        var node = p.Sum();
+        var node = p.Sum().Node;
         p.SkipSpace();
         if (!p.AtEnd) throw p.Error("an operator (+ - * / ^) or the end of the formula");
         return node;
@@ -62,7 +73,22 @@ public static class FormulaParser
 
         private static string Quote(string s) => "'" + s + "'";
 
-        public FormulaNode Sum()
+        // Each method returns the node and the depth of its tree; _nesting counts the open
+        // parentheses, calls and unary signs the recursion is inside.
+        private int _nesting;
+
+        private (FormulaNode Node, int Depth) Deeper(FormulaNode node, int depth)
+        {
+            if (depth > MaxDepth) throw Error($"a simpler formula (at most {MaxDepth} nested operations)");
+            return (node, depth);
+        }
+
+        private void Enter()
+        {
+            if (++_nesting > MaxDepth) throw Error($"a simpler formula (at most {MaxDepth} nested parentheses, calls or signs)");
+        }
+
+        public (FormulaNode Node, int Depth) Sum()
         {
             var left = Product();
             while (true)
@@ -70,11 +96,12 @@ public static class FormulaParser
                 char c = Peek();
                 if (c != '+' && c != '-') return left;
                 _pos++;
-                left = new BinaryNode(c, left, Product());
+                var right = Product();
+                left = Deeper(new BinaryNode(c, left.Node, right.Node), 1 + Math.Max(left.Depth, right.Depth));
             }
         }
 
-        private FormulaNode Product()
+        private (FormulaNode Node, int Depth) Product()
         {
             var left = Unary();
             while (true)
@@ -82,36 +109,46 @@ public static class FormulaParser
                 char c = Peek();
                 if (c != '*' && c != '/') return left;
                 _pos++;
-                left = new BinaryNode(c, left, Unary());
+                var right = Unary();
+                left = Deeper(new BinaryNode(c, left.Node, right.Node), 1 + Math.Max(left.Depth, right.Depth));
             }
         }
 
-        private FormulaNode Unary()
+        private (FormulaNode Node, int Depth) Unary()
         {
             char c = Peek();
-            if (c == '-') { _pos++; return new NegateNode(Unary()); }
-            if (c == '+') { _pos++; return Unary(); }
+            if (c == '-' || c == '+')
+            {
+                Enter();
+                _pos++;
+                var inner = Unary();
+                _nesting--;
+                return c == '-' ? Deeper(new NegateNode(inner.Node), inner.Depth + 1) : inner;
+            }
             return Power();
         }
 
-        private FormulaNode Power()
+        private (FormulaNode Node, int Depth) Power()
         {
             var baseNode = Atom();
             if (Peek() != '^') return baseNode;
             _pos++;
-            return new BinaryNode('^', baseNode, Unary());
+            var exponent = Unary();
+            return Deeper(new BinaryNode('^', baseNode.Node, exponent.Node), 1 + Math.Max(baseNode.Depth, exponent.Depth));
         }
 
-        private FormulaNode Atom()
+        private (FormulaNode Node, int Depth) Atom()
         {
             char c = Peek();
-            if (char.IsDigit(c) || c == '.') return Number();
+            if (char.IsDigit(c) || c == '.') return (Number(), 0);
             if (c == '(')
             {
+                Enter();
                 _pos++;
                 var inner = Sum();
                 if (Peek() != ')') throw Error("')'");
                 _pos++;
+                _nesting--;
                 return inner;
             }
             if (char.IsLetter(c))
@@ -121,19 +158,21 @@ public static class FormulaParser
                 string name = text[start.._pos];
                 switch (name)
                 {
-                    case "x": return new VariableNode('x');
-                    case "y": return new VariableNode('y');
-                    case "pi": return new NumberNode(Math.PI);
-                    case "e": return new NumberNode(Math.E);
+                    case "x": return (new VariableNode('x'), 0);
+                    case "y": return (new VariableNode('y'), 0);
+                    case "pi": return (new NumberNode(Math.PI), 0);
+                    case "e": return (new NumberNode(Math.E), 0);
                 }
                 if (Functions.Contains(name))
                 {
                     if (Peek() != '(') throw Error($"'(' after {name}");
+                    Enter();
                     _pos++;
                     var arg = Sum();
                     if (Peek() != ')') throw Error($"')' closing {name}(");
                     _pos++;
-                    return new CallNode(name, arg);
+                    _nesting--;
+                    return Deeper(new CallNode(name, arg.Node), arg.Depth + 1);
                 }
                 _pos = start;
                 throw Error("x, y, pi, e or one of the functions " + string.Join(", ", Functions));

@@ -20,6 +20,10 @@ public static class StlMeshReader
         {
             uint count = BinaryPrimitives.ReadUInt32LittleEndian(bytes.AsSpan(80, 4));
             if (84L + 50L * count == bytes.Length) return ParseBinary(bytes, (int)count, sourceName);
+            // ASCII STL never holds a NUL byte; a binary file whose size does not match its count is
+            // cut short or corrupt, whatever its header says (many begin "solid").
+            if (bytes.AsSpan(0, Math.Min(bytes.Length, 4096)).Contains((byte)0))
+                throw new JobError(sourceName, $"binary STL declares {count} facets ({84L + 50L * count} bytes) but the file has {bytes.Length} bytes; it is truncated or corrupt, export it again");
         }
         string head = Encoding.ASCII.GetString(bytes, 0, Math.Min(bytes.Length, 512)).TrimStart();
         if (!head.StartsWith("solid", StringComparison.Ordinal))
@@ -46,24 +50,65 @@ public static class StlMeshReader
         return welder.Finish(source);
     }
 
+    /// <summary>ASCII STL: "solid name", then per facet "facet normal nx ny nz / outer loop / vertex x y z
+    /// (three times) / endloop / endfacet", then "endsolid". The structure is checked, so a file cut short
+    /// or missing a keyword is refused instead of being read as a different mesh.</summary>
     private static TriangleMesh ParseAscii(string text, string source)
     {
         var welder = new Welder();
         var tokens = text.Split((char[]?)null, StringSplitOptions.RemoveEmptyEntries);
-        for (int i = 0; i < tokens.Length; i++)
+        int i = 1; // tokens[0] is "solid"
+        while (i < tokens.Length && tokens[i] is not ("facet" or "endsolid")) i++; // the solid's name
+        int facet = 0;
+        string Next(string want)
         {
-            if (tokens[i] != "vertex") continue;
-            if (i + 3 >= tokens.Length) throw new JobError(source, "'vertex' needs x y z");
-            var v = new float[3];
-            for (int k = 0; k < 3; k++)
-                if (!float.TryParse(tokens[i + 1 + k], NumberStyles.Float, CultureInfo.InvariantCulture, out v[k]) || !float.IsFinite(v[k]))
-                    throw new JobError(source, $"'{tokens[i + 1 + k]}' is not a finite number");
-            welder.Add(v[0], v[1], v[2]);
-            i += 3;
+            if (i >= tokens.Length)
+                throw new JobError(source, $"the file ends inside facet {facet} where '{want}' was expected (is it truncated?)");
+            return tokens[i++];
         }
-        if (welder.CornerCount % 3 != 0) throw new JobError(source, "the number of vertices is not a multiple of 3");
+        void Expect(string want)
+        {
+            string got = Next(want);
+            if (got != want) throw new JobError(source, $"facet {facet}: expected '{want}', found '{Clip(got)}'");
+        }
+        void Normal()
+        {
+            // Normals are recomputed from the corners; exporters write "nan" for degenerate facets.
+            string t = Next("a number");
+            if (!float.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out _))
+                throw new JobError(source, $"facet {facet}: '{Clip(t)}' is not a number");
+        }
+        float Number()
+        {
+            string t = Next("a number");
+            if (!float.TryParse(t, NumberStyles.Float, CultureInfo.InvariantCulture, out float v) || !float.IsFinite(v))
+                throw new JobError(source, $"facet {facet}: '{Clip(t)}' is not a finite number");
+            return v;
+        }
+        while (true)
+        {
+            if (i >= tokens.Length) throw new JobError(source, "the file ends without 'endsolid' (is it truncated?)");
+            string t = tokens[i++];
+            if (t == "endsolid") break;
+            facet++;
+            if (t != "facet") throw new JobError(source, $"facet {facet}: expected 'facet' or 'endsolid', found '{Clip(t)}'");
+            Expect("normal");
+            for (int k = 0; k < 3; k++) Normal();
+            Expect("outer");
+            Expect("loop");
+            for (int k = 0; k < 3; k++)
+            {
+                Expect("vertex");
+                float x = Number(), y = Number(), z = Number();
+                welder.Add(x, y, z);
+            }
+            Expect("endloop");
+            Expect("endfacet");
+        }
         return welder.Finish(source);
     }
+
+    private static string Clip(string s) => s.Length <= 40 ? s : s[..40] + "...";
 
     private sealed class Welder
     {
