@@ -20,8 +20,8 @@ public static class SheetSizes
     public static readonly SheetSize B5 = new("B5", 176, 250);
 
     // US sizes: 8.5 x 11 in and 11 x 17 in, exact via 25.4 mm/in ([S] ANSI/ASME Y14.1).
-    public static readonly SheetSize Letter = new("Letter", 8.5 * 25.4, 11 * 25.4);
-    public static readonly SheetSize Tabloid = new("Tabloid", 11 * 25.4, 17 * 25.4);
+    public static readonly SheetSize Letter = new("Letter", 215.9, 279.4);
+    public static readonly SheetSize Tabloid = new("Tabloid", 279.4, 431.8);
 
     // Laser beds: our own names; sizes are typical ranges from fabrication.md [M], landscape as the bed sits.
     public static readonly SheetSize DeskBed = new("desk-bed", 500, 300);

@@ -32,7 +32,6 @@ public static class ModelOutputs
         output.AddFigure("fit", "stopReason", fit.StopReason);
         output.AddFigure("fit", "epsilonDeg", fit.EpsilonDeg);
         output.AddFigure("fit", "steps", (long)fit.History.Count);
-        output.AddFigure("fit", "seconds", fit.History.Count == 0 ? 0 : fit.History[^1].ElapsedSeconds);
         output.AddFigure("fit", "objective", fit.Objective);
         output.AddFigure("fit", "fairness", fit.Fairness);
         output.AddFigure("fit", "shapeRmsM", fit.Shape.Rms);
