@@ -1,5 +1,6 @@
 using Tessel.Core.Jobs;
 using Tessel.Core.Sheets;
+using Tessel.Core.Tessellation;
 using Tessel.Core.Unfolding;
 
 namespace Tessel.Core.Pipeline;
@@ -73,6 +74,10 @@ public static class SheetStage
         var classes = new[] { LineClass.CutOutline, LineClass.Mountain, LineClass.Valley, LineClass.TabFold, LineClass.Label };
         double strip = SheetAnnotations.RequiredStripHeight(stripWidth, stripContent, styles, classes);
         var settings = SettingsFor(job, strip);
+        // Perforation dashes stay on their fold's layer (so the maker still sees mountain from valley);
+        // that layer then has to be cut through, not scored.
+        foreach (var (role, cls) in new[] { (CreaseRole.Mountain, LineClass.Mountain), (CreaseRole.Valley, LineClass.Valley) })
+            if (settings.MethodFor(role) == FoldMethod.Perforate) styles = styles.WithOperation(cls, LineOperation.Cut);
 
         SheetLayoutResult layout;
         try { layout = SheetLayout.Lay(flat, settings); }

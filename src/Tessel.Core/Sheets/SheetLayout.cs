@@ -162,11 +162,8 @@ public static class SheetLayout
             {
                 var plan = Perforation.Plan(len, material.PerforationCutMm, material.PerforationBridgeMm, settings.PerforationVertexZoneMm);
                 if (plan.Kind != PerforationKind.Pattern) shortPerforations++;
-                if (plan.Kind == PerforationKind.Score)
-                {
-                    lines.Add(new PendingLine(part, order, cls, [a, b], false, LineJob.Score));
-                    t.Score += len;
-                }
+                // A perforated fold's layer is sent to the cutter as a cut, so a crease too short even for
+                // one slot is left unmarked rather than scored on that layer (it would be cut through).
                 var dir = (b - a) / len;
                 foreach (var (s0, s1) in plan.Cuts)
                 {
@@ -305,7 +302,7 @@ public static class SheetLayout
         if (tiny.Length > 0)
             warnings.Add($"{tiny.Length} label(s) shrunk below {MinimumLegibleLabelMm} mm to fit their facet: {string.Join(", ", tiny.Take(12))}{(tiny.Length > 12 ? ", ..." : "")}");
         if (shortPerforations > 0)
-            warnings.Add($"{shortPerforations} perforated crease(s) too short for two cut/bridge cycles: made one centred slot or a score");
+            warnings.Add($"{shortPerforations} perforated crease(s) too short for two cut/bridge cycles: made one centred slot, or left uncut where even a slot does not fit");
         int strained = 0; double worstStrain = 0;
         for (int e = 0; e < pattern.EdgeCount; e++)
         {
