@@ -14,15 +14,18 @@ namespace Tessel.Core.Fitting;
 public static class EpsilonConstraintFitter
 {
     /// <summary>One start from <paramref name="start"/> (#V*3; null = the draped positions).
-    /// <paramref name="solver"/> defaults to an exact banded Cholesky.</summary>
+    /// <paramref name="solver"/> defaults to <see cref="DefaultSolver"/>.</summary>
     public static FitResult Fit(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
         ISpdSolver? solver = null, double[]? start = null)
     {
         var rows = new FitRows(pattern, target, pattern.LayerOffset, settings);
-        var result = new FitRun(pattern, rows, settings, solver ?? new BandedCholeskySolver(),
+        var result = new FitRun(pattern, rows, settings, solver ?? DefaultSolver(),
             (double[])(start ?? pattern.Mesh.Positions).Clone()).Run();
         return result with { Spread = new StartSpread(0, [result.Objective], [result.Converged]) };
     }
+
+    /// <summary>The solver used when none is given.</summary>
+    public static ISpdSolver DefaultSolver() => new DefaultFitSolver();
 
     internal static FitResult FitWithRows(GeneratedPattern pattern, FitRows rows, FitSettings settings,
         ISpdSolver solver, double[] start) => new FitRun(pattern, rows, settings, solver, start).Run();
@@ -47,6 +50,7 @@ internal sealed class FitRun
     private readonly double[] _value, _grad, _weight, _residual, _multiplier;
     private double _penalty;
     private int _solves;
+    private double _solveSeconds;
     private long _linearIterations;
     private string _method = "none";
     private double _damping = 1e-4;
@@ -74,8 +78,8 @@ internal sealed class FitRun
         double tolerance = _s.ConstraintTolerance;
         // Phase 1a with a faint pull to the surfaces (well conditioned, lands near the constraint set),
         // phase 1b pure Gauss-Newton on the violation (lands on it).
-        Minimise(Feasibility, Math.Max(1, Math.Min(40, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
-        Minimise(Projection, Math.Max(1, Math.Min(20, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
+        Minimise(Feasibility, Math.Max(1, Math.Min(15, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
+        Minimise(Projection, Math.Max(1, Math.Min(10, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
 
         // Phase 2: epsilon-constraint problem by augmented Lagrangian rounds.
         Evaluate(_x);
@@ -110,7 +114,7 @@ internal sealed class FitRun
         double total = Objective(out double fairness);
         var mesh = _pattern.Mesh.WithPositions((double[])_x.Clone());
         return new FitResult(mesh, _s.EpsilonDeg, converged, converged ? "converged: " + stop : stop, total, fairness, Shape(),
-            residuals, _history, new SolverStatistics(_method, _solves, _linearIterations, _system.Unknowns, _system.Matrix.NonZeroCount),
+            residuals, _history, new SolverStatistics(_method, _solves, _linearIterations, _system.Unknowns, _system.Matrix.NonZeroCount, _solveSeconds, _clock.Elapsed.TotalSeconds),
             new StartSpread(0, [total], [converged]));
     }
 
@@ -145,7 +149,9 @@ internal sealed class FitRun
             foreach (var v in undamped!) maxDiag = Math.Max(maxDiag, Math.Abs(v));
             _system.Damp(damping, 1e-9 * maxDiag + 1e-300);
             Array.Clear(step);
+            long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
             var stats = _solver.Solve(_system.Matrix, rhs, step);
+            _solveSeconds += System.Diagnostics.Stopwatch.GetElapsedTime(t0).TotalSeconds;
             _solves++; used++; _linearIterations += stats.Iterations; _method = stats.Method;
             _system.Apply(_x, step, trial);
             double trialMerit = double.PositiveInfinity;

@@ -37,7 +37,10 @@ public sealed record ShapeError(double Rms, double Max);
 /// <param name="LinearIterations">Sum of the solver's iteration counts.</param>
 /// <param name="Unknowns">Size of the normal matrix.</param>
 /// <param name="NonZeros">Stored entries of the normal matrix.</param>
-public sealed record SolverStatistics(string Method, int LinearSolves, long LinearIterations, int Unknowns, int NonZeros);
+/// <param name="SolveSeconds">Wall time inside the SPD solver (diagnostic; not deterministic).</param>
+/// <param name="TotalSeconds">Wall time of the whole fit (diagnostic; not deterministic).</param>
+public sealed record SolverStatistics(string Method, int LinearSolves, long LinearIterations, int Unknowns, int NonZeros,
+    double SolveSeconds, double TotalSeconds);
 
 /// <summary>How the starts of a multi-start fit compared (objective values as in <see cref="FitIteration"/>).</summary>
 /// <param name="Objectives">Final objective of each start, in start order.</param>

@@ -21,7 +21,7 @@ public sealed record FitSettings
     public double ConstraintTolerance { get; init; } = 1e-10;
     /// <summary>Phase 2 stops when one augmented-Lagrangian round lowers the objective by less than
     /// this fraction (stops the slow creep along in-plane motions).</summary>
-    public double RelativeObjectiveTolerance { get; init; } = 1e-3;
+    public double RelativeObjectiveTolerance { get; init; } = 1e-2;
     /// <summary>Cap on linear solves (Levenberg-Marquardt steps) over all phases.</summary>
     public int MaxIterations { get; init; } = 300;
     /// <summary>Number of starts (multi-start); each start perturbs interior vertices along the normal.</summary>
@@ -32,5 +32,5 @@ public sealed record FitSettings
     /// the mean edge length (0 = start from the plain drape).</summary>
     public double StartPerturbation { get; init; } = 0.02;
     /// <summary>Initial augmented-Lagrangian penalty (dimensionless: constraints are in radians).</summary>
-    public double InitialPenalty { get; init; } = 1e3;
+    public double InitialPenalty { get; init; } = 1e6;
 }

@@ -11,7 +11,7 @@ namespace Tessel.Core.Fitting;
 /// objective among converged starts (then among all), ties broken by the lower start index.</summary>
 public static class MultiStartFitter
 {
-    /// <param name="solverFactory">Makes one SPD solver per start; default an exact banded Cholesky.</param>
+    /// <param name="solverFactory">Makes one SPD solver per start; default <see cref="EpsilonConstraintFitter.DefaultSolver"/>.</param>
     public static FitResult Fit(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
         Func<ISpdSolver>? solverFactory = null)
     {
@@ -22,7 +22,7 @@ public static class MultiStartFitter
         {
             var start = PerturbedStart(pattern.Mesh, target, rows.Scale * settings.StartPerturbation, settings.Seed, k);
             results[k] = EpsilonConstraintFitter.FitWithRows(pattern, rows, settings,
-                solverFactory?.Invoke() ?? new BandedCholeskySolver(), start);
+                solverFactory?.Invoke() ?? EpsilonConstraintFitter.DefaultSolver(), start);
         });
         int best = 0;
         for (int k = 1; k < starts; k++)

@@ -13,14 +13,14 @@ namespace Tessel.Core.Unfolding;
 public static class MeshUnfolder
 {
     /// <summary>The flat pattern; strain per edge is (flat - folded) / folded.</summary>
-    /// <param name="solver">SPD solver for the flattening; default an exact banded Cholesky.</param>
+    /// <param name="solver">SPD solver for the flattening; default the fitter's default solver.</param>
     /// <param name="strainTolerance">Largest |strain| accepted from the tree layout before flattening.</param>
     public static FlatPattern Unfold(CreaseMesh mesh, ISpdSolver? solver = null, double strainTolerance = 1e-12)
     {
         var flat = TreeLayout(mesh, out int anchor, out int direction);
         var (pairs, lengths) = LengthPairs(mesh);
         if (MaxStrain(flat, pairs, lengths) > strainTolerance)
-            Flatten(flat, pairs, lengths, anchor, direction, solver ?? new BandedCholeskySolver());
+            Flatten(flat, pairs, lengths, anchor, direction, solver ?? EpsilonConstraintFitter.DefaultSolver());
         var strain = new double[mesh.EdgeCount];
         for (int e = 0; e < mesh.EdgeCount; e++)
         {
