@@ -38,7 +38,6 @@ internal sealed class FitRows
         _target = target;
         _foldDepth = foldDepth;
         _fairnessRoot = Math.Sqrt(s.FairnessWeight);
-        var pos = mesh.Positions;
         double sum = 0;
         for (int e = 0; e < mesh.EdgeCount; e++) sum += (mesh.Vertex(mesh.EdgeVertices[2 * e + 1]) - mesh.Vertex(mesh.EdgeVertices[2 * e])).Length;
         Scale = sum / mesh.EdgeCount;
@@ -112,7 +111,6 @@ internal sealed class FitRows
     /// constraint rows give the constrained quantity g, to be held in [Lo, Hi].</summary>
     public void Evaluate(double[] xyz, double[] value, double[] grad)
     {
-        Span<double> g = stackalloc double[3 * 16];
         double invH = 1 / Scale;
         for (int r = 0; r < Kind.Length; r++)
         {
