@@ -1,0 +1,53 @@
+namespace Tessel.Core.Tessellation;
+
+/// <summary>Whether a family suits a target, in plain words.</summary>
+/// <param name="Suits">False when the pairing is poor.</param>
+/// <param name="Message">One or two sentences for the summary.</param>
+/// <param name="Better">A family that would suit better, or null.</param>
+public sealed record FamilyAdvice(string Family, bool Suits, string Message, string? Better)
+{
+    /// <summary>Total curvature |K| x area below which a target counts as single-curved or flat
+    /// (0.05 rad of angle defect spread over the whole sheet; derived here from geometry.md section 7:
+    /// at 100 vertices it is 0.0005 rad each, ten times below the invisible 0.005 rad).</summary>
+    public const double NegligibleTotalCurvature = 0.05;
+
+    /// <summary>One line per family: the shapes it suits.</summary>
+    public static string Describe(string family) => family switch
+    {
+        "miura" => "miura: saddles and anticlastic canopies (K < 0), waves and gentle single curvature; parameters: cells or cell size, sector angle, fold depth, orientation.",
+        "reverse-curvature" => "reverse-curvature: intended for domes and synclastic shells (K > 0) as a graded Miura-type sheet; parameters as miura plus grading. In this build its dome envelope was not yet synclastic at every vertex: check the envelope defects.",
+        "yoshimura" => "yoshimura: barrel vaults and cylinders (one direction curved, K = 0), folded in closed form; parameters: rings along the axis, triangles across the arc, or cell size.",
+        "waterbomb" => "waterbomb: tubes and, graded, domes; not available in this build.",
+        "free-triangulated" => "free-triangulated: any shape, domes and saddles included, at the cost of an irregular fold layout; parameters: cells or cell size, flat-diagonal share.",
+        _ => throw new ArgumentException($"unknown family '{family}'", nameof(family)),
+    };
+
+    /// <summary>Judges the pairing of <paramref name="family"/> with a target of the given curvature.</summary>
+    public static FamilyAdvice For(string family, CurvatureFigures c)
+    {
+        double domeScale = c.MaxGaussian * c.Area, saddleScale = -c.MinGaussian * c.Area;
+        bool dome = domeScale > NegligibleTotalCurvature, saddle = saddleScale > NegligibleTotalCurvature;
+        bool curved = c.MaxAbsPrincipal * Math.Sqrt(c.Area) > NegligibleTotalCurvature;
+        string k = $"K from {c.MinGaussian:0.####} to {c.MaxGaussian:0.####} 1/m^2";
+        switch (family)
+        {
+            case "miura":
+                if (dome) return new(family, false, $"The target is dome-like ({k}): a uniform Miura sheet bends into a saddle (K < 0), the opposite sign, so the fit will leave large shape error.", "free-triangulated");
+                return new(family, true, $"The target is saddle-like or single-curved ({k}): Miura sheets bend this way naturally.", null);
+            case "reverse-curvature":
+                if (saddle && !dome) return new(family, false, $"The target is saddle-like ({k}): a reverse-curvature sheet is made for K > 0; a plain Miura sheet bends to K < 0 by itself.", "miura");
+                if (!dome) return new(family, false, $"The target is single-curved or flat ({k}): no grading is needed.", curved ? "yoshimura" : "miura");
+                return new(family, true, $"The target is dome-like ({k}), the case this family is meant for; check its envelope defects after the fit.", null);
+            case "yoshimura":
+                if (dome || saddle) return new(family, false, $"The target is doubly curved ({k}): a Yoshimura pattern folds to a cylinder (K = 0) and cannot follow it.", dome ? "free-triangulated" : "miura");
+                return new(family, true, $"The target is single-curved ({k}): a Yoshimura vault fits it, in closed form on a circular cylinder.", null);
+            case "free-triangulated":
+                if (!dome && !saddle) return new(family, true, $"Any shape works ({k}); for a single-curved target a Yoshimura or Miura pattern gives a tidier, regular fold layout.", curved ? "yoshimura" : "miura");
+                return new(family, true, $"Any shape works ({k}); expect shape error to grow with |K| times the cell area.", null);
+            case "waterbomb":
+                return new(family, false, "The waterbomb family is not available in this build.", dome ? "free-triangulated" : curved ? "yoshimura" : "miura");
+            default:
+                throw new ArgumentException($"unknown family '{family}'", nameof(family));
+        }
+    }
+}

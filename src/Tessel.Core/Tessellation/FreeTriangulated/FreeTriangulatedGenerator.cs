@@ -1,0 +1,149 @@
+using Tessel.Core.Geometry;
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation.Miura;
+
+namespace Tessel.Core.Tessellation.FreeTriangulated;
+
+/// <summary>A free triangulated developable net: the footprint meshed by a regular triangulation (grid
+/// cells split along one diagonal direction, so interior vertices have degree 6), every vertex on the
+/// target. The fit then moves the vertices so that every interior vertex is developable within epsilon
+/// while the distance to the target is minimised; optionally a share of the cells stay whole as planar
+/// quad panels (flat diagonal, planarity constraint).</summary>
+/// <remarks>
+/// On a footprint that is not a rectangle, only cells whose corners all lie inside it are kept, so the
+/// border is stepped at the cell size (exact for convex footprints: kept cells lie inside). The net folds
+/// both ways wherever the target's curvature demands, so no mountain/valley sign is imposed during the
+/// fit; call <see cref="RelabelFolds"/> on the fitted mesh to label its creases.
+/// The start is crumpled: interior vertices sit off the target along its normal by normal deviates of standard deviation
+/// <see cref="FreeTriangulatedParameters.Crumple"/> cell sizes. On a smooth star the angle sum is at a
+/// maximum over normal motions of the centre, so the developability residual has no useful gradient
+/// there (the same trap as the facet-angle planarity test in geometry.md section 1); measured on a
+/// 6 x 6 net on a cap, a start within 0.02 cells of the target did not reach developability in 300
+/// steps while a 0.1-cell crumple converged to 2e-14 rad.
+/// </remarks>
+public static class FreeTriangulatedGenerator
+{
+    /// <summary>Builds the net on the target; throws <see cref="ArgumentException"/> naming the parameter.</summary>
+    public static GeneratedPattern Generate(ITargetSurface target, FreeTriangulatedParameters p)
+    {
+        if (!(p.FlatDiagonalShare >= 0 && p.FlatDiagonalShare <= 1))
+            throw new ArgumentException($"FlatDiagonalShare = {p.FlatDiagonalShare} is outside [0, 1]; use e.g. 0.3 for 30 % planar quad panels", nameof(p.FlatDiagonalShare));
+        var fp = target.Footprint;
+        int cx = Count(p.CellsX, p.CellSize, fp.Width, nameof(p.CellsX));
+        int cy = Count(p.CellsY, p.CellSize, fp.Depth, nameof(p.CellsY));
+        int nx = cx + 1;
+        double dx = fp.Width / cx, dy = fp.Depth / cy;
+        int Grid(int i, int j) => j * nx + i;
+
+        // Cells kept: all four corners inside the footprint.
+        var faces = new List<int[]>();
+        for (int j = 0; j < cy; j++)
+            for (int i = 0; i < cx; i++)
+            {
+                int a = Grid(i, j), b = Grid(i + 1, j), c = Grid(i + 1, j + 1), d = Grid(i, j + 1);
+                bool inside = true;
+                foreach (var (ii, jj) in new[] { (i, j), (i + 1, j), (i + 1, j + 1), (i, j + 1) })
+                    inside &= fp.Contains(fp.MinX + ii * dx, fp.MinY + jj * dy);
+                if (!inside) continue;
+                if (IsPanel(i, j, p.FlatDiagonalShare)) faces.Add([a, b, c, d]);
+                else { faces.Add([a, b, c]); faces.Add([a, c, d]); }
+            }
+        if (faces.Count == 0)
+            throw new ArgumentException("no grid cell fits inside the footprint; use a smaller CellSize or more cells", nameof(p.CellSize));
+
+        // Compact the vertex numbering to the vertices in use, in grid order (deterministic).
+        var map = Enumerable.Repeat(-1, nx * (cy + 1)).ToArray();
+        foreach (var f in faces) foreach (var v in f) map[v] = 0;
+        int n = 0;
+        for (int g = 0; g < map.Length; g++) if (map[g] == 0) map[g] = n++;
+        var pos = new double[3 * n];
+        var layers = new VertexLayer[n];
+        var offsets = new double[n];
+        for (int g = 0; g < map.Length; g++)
+        {
+            if (map[g] < 0) continue;
+            double x = fp.MinX + (g % nx) * dx, y = fp.MinY + (g / nx) * dy;
+            double z = target.HeightAt(x, y);
+            if (!double.IsFinite(z))
+                throw new ArgumentException($"the net reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller footprint", nameof(target));
+            new Vec3(x, y, z).Write(pos, map[g]);
+            offsets[map[g]] = p.Crumple * Math.Min(dx, dy) * CrumpleProfile(g % nx, g / nx);
+            layers[map[g]] = VertexLayer.Top;
+        }
+        var compact = faces.Select(f => f.Select(v => map[v]).ToArray()).ToArray();
+        var boundary = new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat).BoundaryVertices();
+        for (int v = 0; v < n; v++)
+        {
+            if (boundary[v]) continue;
+            var q = Vec3.Read(pos, v);
+            (q + offsets[v] * target.NormalAt(q.X, q.Y)).Write(pos, v);
+        }
+        var mesh = RelabelFolds(new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat));
+
+        var stencils = new List<int>();
+        for (int j = 0; j <= cy; j++)
+            for (int i = 0; i <= cx; i++)
+            {
+                int c = map[Grid(i, j)];
+                if (c < 0) continue;
+                if (i >= 1 && i < cx && map[Grid(i - 1, j)] >= 0 && map[Grid(i + 1, j)] >= 0) stencils.AddRange([map[Grid(i - 1, j)], c, map[Grid(i + 1, j)]]);
+                if (j >= 1 && j < cy && map[Grid(i, j - 1)] >= 0 && map[Grid(i, j + 1)] >= 0) stencils.AddRange([map[Grid(i, j - 1)], c, map[Grid(i, j + 1)]]);
+            }
+        var constraints = FamilyConstraints.Developability;
+        if (compact.Any(f => f.Length == 4)) constraints |= FamilyConstraints.QuadPlanarity;
+        return new GeneratedPattern(mesh, constraints, stencils.ToArray(), CentralVertex(pos), 0);
+    }
+
+    /// <summary>Labels every interior edge by the sign of its fold angle in the given state (flat within
+    /// 1e-9 rad stays <see cref="CreaseRole.Flat"/>); for the fitted net, whose creases fold both ways.</summary>
+    public static CreaseMesh RelabelFolds(CreaseMesh mesh) => RegularMiuraSheet.AssignRolesFromGeometry(mesh);
+
+    /// <summary>Whether cell (i, j) stays a planar quad panel: cells are chosen by the additive recurrence
+    /// frac(i g1 + j g2) &lt; share with the plastic-number constants of the R2 sequence (Roberts 2018),
+    /// which spreads the panels evenly for any share without a random generator.</summary>
+    public static bool IsPanel(int i, int j, double share)
+    {
+        if (share <= 0) return false;
+        if (share >= 1) return true;
+        const double g1 = 0.7548776662466927, g2 = 0.5698402909980532;
+        double u = i * g1 + j * g2;
+        return u - Math.Floor(u) < share;
+    }
+
+    /// <summary>Deterministic offset profile for grid vertex (i, j): a standard normal deviate (Box-Muller)
+    /// from a generator seeded by the grid position alone, so the start never depends on the job seed
+    /// (multi-start perturbs on top of it) and neighbours fold independently.</summary>
+    public static double CrumpleProfile(int i, int j)
+    {
+        var random = new Random(unchecked(i * 73856093 ^ j * 19349663 ^ 0x5bd1e995));
+        double u1 = 1 - random.NextDouble(), u2 = random.NextDouble();
+        return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
+    }
+
+    private static int Count(int? count, double? cellSize, double extent, string name)
+    {
+        if (count is int c)
+        {
+            if (c < 2) throw new ArgumentException($"{name} = {c}: at least 2 cells are needed for an interior vertex", name);
+            return c;
+        }
+        if (cellSize is not double size || !(size > 0) || !double.IsFinite(size))
+            throw new ArgumentException($"{name} is not given and CellSize is not a positive length; give a cell count or a cell size in metres", name);
+        return Math.Max(2, (int)Math.Round(extent / size));
+    }
+
+    private static int CentralVertex(double[] pos)
+    {
+        int n = pos.Length / 3;
+        double mx = 0, my = 0;
+        for (int v = 0; v < n; v++) { mx += pos[3 * v]; my += pos[3 * v + 1]; }
+        mx /= n; my /= n;
+        int best = 0; double bd = double.MaxValue;
+        for (int v = 0; v < n; v++)
+        {
+            double d = Math.Pow(pos[3 * v] - mx, 2) + Math.Pow(pos[3 * v + 1] - my, 2);
+            if (d < bd) { bd = d; best = v; }
+        }
+        return best;
+    }
+}

@@ -1,0 +1,76 @@
+using Tessel.Core.Geometry;
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation.Miura;
+
+namespace Tessel.Core.Tessellation.ReverseCurvature;
+
+/// <summary>Reverse-curvature family (geometry.md section 3): developable, Kawasaki-satisfying degree-4
+/// quad tessellations whose folded envelope is synclastic (K &gt; 0), the opposite sign to a bent uniform
+/// Miura sheet (Wei et al., PRL 110, 2013). Made here as a Miura sheet (Schenk &amp; Guest 2013 cell)
+/// whose zig-zag offset grows from the centre outward, draped on the dome with the two-layer offset of
+/// Dudte et al. (Nature Materials 15, 2016); the Miura constraints (planar quads, Kawasaki,
+/// developability, fold signs) are then enforced by the common fitter, which finishes the grading.</summary>
+public static class ReverseCurvatureGenerator
+{
+    /// <summary>Builds and drapes the graded sheet; parameter errors as in <see cref="MiuraGenerator"/>.</summary>
+    public static GeneratedPattern Generate(ITargetSurface target, ReverseCurvatureParameters p)
+    {
+        if (!(p.Grading > -0.9 && p.Grading < 3) || !double.IsFinite(p.Grading))
+            throw new ArgumentException($"Grading = {p.Grading} is outside (-0.9, 3); use e.g. 0.3 for a zig-zag 30 % deeper at the corners", nameof(p.Grading));
+        var uniform = MiuraGenerator.Generate(target, p.Miura);
+        var (cell, cellsX, cellsY) = MiuraGenerator.ResolveCell(target.Footprint, p.Miura);
+        int nx = 2 * cellsX + 1, ny = 2 * cellsY + 1;
+        var mesh = uniform.Mesh;
+        var pos = (double[])mesh.Positions.Clone();
+        double phi = p.Miura.OrientationDeg * Math.PI / 180;
+        // Zig-zag direction (sheet y axis) in plan, and the sheet's half extents in cell units.
+        var across = new Vec2(0, 1).Rotated(phi);
+        double hx = cellsX, hy = cellsY;
+        for (int j = 0; j < ny; j++)
+            for (int i = 1; i < nx; i += 2)
+            {
+                // Odd columns carry the zig-zag offset V: move them by (grade - 1) V across the zig-zag.
+                double rx = (i - cellsX) / hx, ry = (j - cellsY) / hy;
+                double r2 = 0.5 * (rx * rx + ry * ry);
+                double shift = p.Grading * r2 * cell.V;
+                int k = j * nx + i;
+                var q = Vec3.Read(pos, k);
+                double x = q.X + shift * across.X, y = q.Y + shift * across.Y;
+                double z = target.HeightAt(x, y);
+                if (!double.IsFinite(z))
+                    throw new ArgumentException($"the graded sheet reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller Grading or footprint", nameof(p.Grading));
+                var onTarget = new Vec3(x, y, z);
+                (mesh.Layers[k] == VertexLayer.Top ? onTarget : onTarget - uniform.LayerOffset * target.NormalAt(x, y)).Write(pos, k);
+            }
+        var graded = new CreaseMesh("reverse-curvature", pos, mesh.Faces, mesh.Layers, RoleLookup(mesh));
+        return uniform with { Mesh = graded };
+    }
+
+    /// <summary>The envelope through the top-layer vertices that carry no zig-zag offset (odd rows j,
+    /// even columns i): a regular cellsY x (cellsX + 1) grid, split along one diagonal, whose angle
+    /// defects are its discrete Gaussian curvature. (The zig-zag vertices are left out: skinny triangles
+    /// through them can be non-convex even with every vertex on a sphere.)</summary>
+    public static CreaseMesh TopEnvelope(CreaseMesh folded, int cellsX, int cellsY)
+    {
+        int nx = 2 * cellsX + 1, cols = cellsX + 1, rows = cellsY;
+        var pos = new double[3 * cols * rows];
+        for (int t = 0; t < rows; t++)
+            for (int i = 0; i < cols; i++)
+                folded.Vertex((2 * t + 1) * nx + 2 * i).Write(pos, t * cols + i);
+        var faces = new List<int[]>();
+        for (int t = 0; t + 1 < rows; t++)
+            for (int i = 0; i + 1 < cols; i++)
+            {
+                int a = t * cols + i, b = a + 1, c = a + cols + 1, d = a + cols;
+                faces.Add([a, b, c]); faces.Add([a, c, d]);
+            }
+        return new CreaseMesh("envelope", pos, faces.ToArray(), new VertexLayer[cols * rows], (_, _) => CreaseRole.Flat);
+    }
+
+    private static Func<int, int, CreaseRole> RoleLookup(CreaseMesh mesh)
+    {
+        var roles = new Dictionary<(int, int), CreaseRole>();
+        for (int e = 0; e < mesh.EdgeCount; e++) roles[(mesh.EdgeVertices[2 * e], mesh.EdgeVertices[2 * e + 1])] = mesh.EdgeRoles[e];
+        return (a, b) => roles[(a, b)];
+    }
+}
