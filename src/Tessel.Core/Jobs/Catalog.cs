@@ -23,13 +23,9 @@ public static class Catalog
     /// <summary>Tessellation families (tessellation.family). The egg-box is never offered: it cannot
     /// be folded from a flat sheet.</summary>
     public static readonly IReadOnlyList<CatalogEntry> Families =
-    [
-        new("miura", "degree-4 quads, rigid-foldable; bends naturally into saddles (K < 0)"),
-        new("reverse-curvature", "graded degree-4 quads whose envelope is dome-like (K > 0)"),
-        new("yoshimura", "diamond triangles; folds into barrel vaults and cylinders (K = 0)"),
-        new("waterbomb", "triangles around degree-6 vertices; tubes and, graded, domes"),
-        new("free-triangulated", "triangulated quads with free diagonals; follows any shape, not flat-foldable"),
-    ];
+        new[] { "miura", "reverse-curvature", "yoshimura", "waterbomb", "free-triangulated" }
+            .Select(f => new CatalogEntry(f, Tessellation.FamilyAdvice.Describe(f)[(f.Length + 2)..]))
+            .ToArray();
 
     /// <summary>Material presets of the sheet stage (fabrication.material); their figures are starting values to test.</summary>
     public static IReadOnlyList<CatalogEntry> Materials { get; } = Sheets.Materials.All

@@ -254,7 +254,7 @@ public static partial class JobLoader
         double sector = r.Number("sectorAngleDeg") ?? 60;
         var depth = r.Number("foldDepth");
         double orient = r.Number("orientationDeg") ?? 0;
-        double share = r.Number("flatDiagonalShare") ?? 0.5;
+        double share = r.Number("flatDiagonalShare") ?? 0;
         r.RejectUnknown();
         CheckChoice(r.PathOf("family"), family, Catalog.Families.Select(f => f.Name), family.Contains("egg", StringComparison.OrdinalIgnoreCase)
             ? "the egg-box pattern is not developable and cannot be folded from one sheet; " : "");
@@ -343,15 +343,15 @@ public static partial class JobLoader
         double[] sweep = r.Numbers("epsilonSweepDeg") ?? [];
         var seed = r.Integer("seed");
         int starts = r.Integer("starts") ?? 1;
-        int maxIt = r.Integer("maxIterations") ?? 200;
+        int maxIt = r.Integer("maxIterations") ?? 300;
         double tol = r.Number("tolerance") ?? 1e-9;
         bool accept = r.Bool("acceptUnconverged") ?? false;
         string anchors = r.String("anchors") ?? "none";
         var b = r.Object("bounds");
-        double minSector = b.Number("minSectorAngleDeg") ?? 10;
-        double maxSector = b.Number("maxSectorAngleDeg") ?? 170;
-        double minFold = b.Number("minFoldAngleDeg") ?? 0;
-        double maxFold = b.Number("maxFoldAngleDeg") ?? 170;
+        double minSector = b.Number("minSectorAngleDeg") ?? 5;
+        double maxSector = b.Number("maxSectorAngleDeg") ?? 175;
+        double minFold = b.Number("minFoldAngleDeg") ?? 1;
+        double maxFold = b.Number("maxFoldAngleDeg") ?? 175;
         double minEdge = b.Number("minEdgeLengthMm") ?? 3;
         b.RejectUnknown();
         r.RejectUnknown();

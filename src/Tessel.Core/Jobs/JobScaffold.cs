@@ -112,9 +112,9 @@ public static class JobScaffold
                 // Allowed developability residual per vertex in degrees; 0 = exact.
                 "epsilonDeg": 0,
                 "starts": 4,
-                "maxIterations": 200,
+                "maxIterations": 300,
                 "anchors": "none",
-                "bounds": { "minSectorAngleDeg": 10, "maxSectorAngleDeg": 170, "minEdgeLengthMm": 3 },
+                "bounds": { "minSectorAngleDeg": 5, "maxSectorAngleDeg": 175, "minEdgeLengthMm": 3 },
               },
 
               "fabrication": {

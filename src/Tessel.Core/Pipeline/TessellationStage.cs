@@ -2,40 +2,44 @@ using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
-using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Core.Pipeline;
 
-/// <summary>The crease pattern a family generated on the target, or why there is none.</summary>
+/// <summary>The crease pattern a family generated on the target, or why there is none, and whether the
+/// family suits the target's curvature.</summary>
 /// <param name="Pattern">Draped initial state with the family's constraints; null when the family
 /// cannot be built by this version (see <paramref name="Unavailable"/>).</param>
-public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable);
+/// <param name="Advice">Plain-words verdict on pairing this family with this target.</param>
+public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable, FamilyAdvice Advice);
 
 /// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
 public static class TessellationStage
 {
+    /// <summary>Families the job may name that this version does not generate yet.</summary>
+    public static readonly IReadOnlyList<string> NotYetAvailable = ["waterbomb"];
+
     /// <exception cref="JobError">The family's parameters cannot make a pattern on this target.</exception>
     public static TessellationStageResult Run(Job job, ITargetSurface target, ProgressReporter progress)
     {
         var spec = job.Tessellation;
         progress.Stage("tessellation", $"generating the {spec.Family} pattern");
+        var advice = FamilyAdvice.For(spec.Family, CurvatureFigures.Sample(target));
+        if (!advice.Suits) progress.Step(advice.Message);
+        if (NotYetAvailable.Contains(spec.Family))
+        {
+            string why = $"the {spec.Family} family is not built by this version yet; only the target was built (use free-triangulated for domes or yoshimura for vaults)";
+            progress.Step(why);
+            return new TessellationStageResult(null, why, advice);
+        }
         Units.TryMetresPer(job.Target.Units, out double metres);
+        var p = new FamilyParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
+            spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
+            spec.OrientationDeg, spec.FlatDiagonalShare);
         try
         {
-            switch (spec.Family)
-            {
-                case "miura":
-                    var p = new MiuraParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
-                        spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
-                        spec.OrientationDeg);
-                    var pattern = MiuraGenerator.Generate(target, p);
-                    progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
-                    return new TessellationStageResult(pattern, null);
-                default:
-                    string why = $"the {spec.Family} family is not built by this version yet; only the target was built (use family \"miura\" for a full build)";
-                    progress.Step(why);
-                    return new TessellationStageResult(null, why);
-            }
+            var pattern = FamilyGenerators.Generate(spec.Family, target, p);
+            progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
+            return new TessellationStageResult(pattern, null, advice);
         }
         catch (ArgumentException e)
         {
@@ -43,8 +47,8 @@ public static class TessellationStage
         }
     }
 
-    /// <summary>A fold depth of a quarter of the smaller cell half-size keeps the sheet well away from
-    /// folded shut at any acute sector angle (Miura: depth below L tan(gamma)).</summary>
+    /// <summary>A fold depth of a quarter of the smaller cell half-size keeps a Miura sheet well away from
+    /// folded shut at any acute sector angle (depth below L tan(gamma)).</summary>
     private static double DefaultFoldDepth(Footprint fp, TessellationSpec spec, double metres)
     {
         double cx = spec.CellsX is int nx ? fp.Width / nx : (spec.CellSize ?? fp.Width / 8) * metres;
@@ -60,6 +64,7 @@ public static class TessellationStage
         "SectorAngleDeg" => "sectorAngleDeg",
         "FoldDepth" => "foldDepth",
         "OrientationDeg" => "orientationDeg",
+        "FlatDiagonalShare" => "flatDiagonalShare",
         _ => "family",
     };
 

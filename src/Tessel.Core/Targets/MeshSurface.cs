@@ -34,7 +34,15 @@ public sealed class MeshSurface : ITargetSurface
         _curvatures = VertexCurvatures(_mesh, _normals);
         Footprint = footprint ?? PlanBounds(_mesh);
         Name = name;
+        for (int i = 2; i < _mesh.Positions.Length; i += 3)
+        {
+            _midZ += _mesh.Positions[i];
+        }
+        _midZ /= Math.Max(1, _mesh.Positions.Length / 3);
     }
+
+    /// <summary>Mean vertex height: the query height for normals off the mesh in plan.</summary>
+    private readonly double _midZ;
 
     /// <summary>File name the mesh came from.</summary>
     public string Name { get; }
@@ -54,7 +62,9 @@ public sealed class MeshSurface : ITargetSurface
     public Vec3 NormalAt(double x, double y)
     {
         var (t, u, v, w) = _bvh.HighestAbove(x, y);
-        if (t < 0) return new Vec3(double.NaN, double.NaN, double.NaN);
+        // Off the mesh in plan (a pattern's zig-zag overhangs its footprint) the nearest point's
+        // normal is the useful answer for fitting; heights stay undefined there.
+        if (t < 0) return ClosestPoint(new Vec3(x, y, _midZ)).Normal;
         return Blend(t, u, v, w);
     }
 

@@ -56,6 +56,8 @@ public static class BuildRunner
     {
         var tessellation = TessellationStage.Run(job, target, progress);
         output.AddFigure("tessellation", "available", tessellation.Pattern is not null);
+        output.AddFigure("tessellation", "familySuitsTarget", tessellation.Advice.Suits);
+        output.AddFigure("tessellation", "advice", tessellation.Advice.Message);
         if (tessellation.Pattern is null)
         {
             output.AddFigure("tessellation", "note", tessellation.Unavailable!);
@@ -65,6 +67,7 @@ public static class BuildRunner
         var fit = FitStage.Run(job, tessellation.Pattern, target, progress);
         ModelOutputs.AddFit(output, job, tessellation, fit);
         var warnings = new List<string>();
+        if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
         if (!fit.Fit.Converged)
         {
             string why = $"the fit did not converge ({fit.Fit.StopReason}; largest constraint residual {fit.Fit.Residuals.MaxConstraintViolation:0.##E+0})";

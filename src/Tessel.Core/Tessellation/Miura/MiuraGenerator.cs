@@ -30,11 +30,17 @@ public static class MiuraGenerator
         {
             var local = flat.Vertex(k);
             var plan = centre + (mid + new Vec2(local.X, local.Y)).Rotated(phi);
-            double z = target.HeightAt(plan.X, plan.Y);
+            // The zig-zag overhangs the footprint by up to V; a target defined only over its footprint
+            // (a mesh, a height map) is sampled at the nearest footprint point instead, which only
+            // moves the starting drape.
+            var sample = double.IsFinite(target.HeightAt(plan.X, plan.Y))
+                ? plan
+                : new Vec2(Math.Clamp(plan.X, fp.MinX, fp.MaxX), Math.Clamp(plan.Y, fp.MinY, fp.MaxY));
+            double z = target.HeightAt(sample.X, sample.Y);
             if (!double.IsFinite(z))
                 throw new ArgumentException($"the sheet reaches ({plan.X:0.###}, {plan.Y:0.###}) m where the target has no surface; use a smaller footprint or a target that covers it", nameof(target));
             var onTarget = new Vec3(plan.X, plan.Y, z);
-            var point = flat.Layers[k] == VertexLayer.Top ? onTarget : onTarget - d * target.NormalAt(plan.X, plan.Y);
+            var point = flat.Layers[k] == VertexLayer.Top ? onTarget : onTarget - d * target.NormalAt(sample.X, sample.Y);
             point.Write(pos, k);
         }
         var mesh = flat.WithPositions(pos);
