@@ -1,3 +1,4 @@
+using Tessel.Core.Pipeline;
 using System.CommandLine;
 using Tessel.Core.Jobs;
 using Tessel.Output.Build;
@@ -39,6 +40,11 @@ public static class Program
         {
             stderr.WriteLine($"tessel: {e.Message}");
             return ExitCodes.BadInput;
+        }
+        catch (FitBreakdownError e)
+        {
+            stderr.WriteLine($"tessel: {e.Message}");
+            return ExitCodes.NotConverged;
         }
         catch (OutputNotWritableError e)
         {

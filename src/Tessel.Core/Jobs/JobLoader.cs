@@ -167,6 +167,17 @@ public static partial class JobLoader
                 Positive(fr.PathOf("depth"), fd, len, required: true);
             }
             footprint = new FootprintSpec(fw, fd, corners);
+            // A model is of a building-sized thing: beyond these the geometry stops being meaningful
+            // (and squared lengths overflow), so say so instead of failing deep in the solver.
+            Geometry.Units.TryMetresPer(units, out double metresPerUnit);
+            double spanX = corners is null ? fw!.Value : corners.Max(q => q[0]) - corners.Min(q => q[0]);
+            double spanY = corners is null ? fd!.Value : corners.Max(q => q[1]) - corners.Min(q => q[1]);
+            double span = Math.Max(spanX, spanY) * metresPerUnit;
+            string where = corners is null ? fr.PathOf(spanX >= spanY ? "width" : "depth") : fr.PathOf("corners");
+            if (span > MaxFootprintMetres)
+                throw new JobError(where, $"the footprint spans {Format(span)} m; Tessel models footprints up to {Format(MaxFootprintMetres)} m across: check the units (target.units)");
+            if (span < MinFootprintMetres)
+                throw new JobError(where, $"the footprint spans {Format(span)} m; Tessel needs at least {Format(MinFootprintMetres)} m across: check the units (target.units)");
         }
         else if (kind is not ("height-map" or "mesh"))
         {
@@ -509,6 +520,12 @@ public static partial class JobLoader
         string hint = near is null ? "" : $"did you mean \"{near}\"? ";
         throw new JobError(path, $"{prefix}{hint}must be one of {string.Join(", ", list)} (got \"{value}\")");
     }
+
+    /// <summary>Largest footprint span accepted, metres (a city district, not a continent).</summary>
+    public const double MaxFootprintMetres = 100_000;
+
+    /// <summary>Smallest footprint span accepted, metres.</summary>
+    public const double MinFootprintMetres = 0.001;
 
     private static void Positive(string path, double? v, string what, bool required)
     {

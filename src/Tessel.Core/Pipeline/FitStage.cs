@@ -31,7 +31,17 @@ public static class FitStage
     {
         var settings = SettingsFor(job);
         progress.Stage("fit", $"{settings.Starts} start(s), epsilon {settings.EpsilonDeg:0.###} deg, {pattern.Mesh.VertexCount * 3} unknowns");
-        var fit = MultiStartFitter.Fit(pattern, target, settings, () => new AutoSolver());
+        FitResult fit;
+        try
+        {
+            fit = MultiStartFitter.Fit(pattern, target, settings, () => new AutoSolver());
+        }
+        catch (Exception e) when (Breakdown(e) is { } cause)
+        {
+            throw new FitBreakdownError($"the fit broke down numerically ({cause.Message}); check the target's size and units and the tessellation's cell size", e);
+        }
+        if (!fit.Mesh.Positions.All(double.IsFinite))
+            throw new FitBreakdownError("the fit produced non-finite vertex positions; check the target's size and units and the tessellation's cell size", new ArithmeticException());
         progress.Step($"{(fit.Converged ? "converged" : "NOT converged")} ({fit.StopReason}) after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, max constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
 
         var front = new List<ParetoPoint>();
@@ -40,10 +50,25 @@ public static class FitStage
         {
             var order = sweep.Distinct().OrderBy(e => e).ToArray();
             progress.Step($"sweeping epsilon over {order.Length} values");
-            front.AddRange(ParetoSweep.Run(pattern, target, settings with { Starts = 1 }, order, new AutoSolver()).Front);
+            try
+            {
+                front.AddRange(ParetoSweep.Run(pattern, target, settings with { Starts = 1 }, order, new AutoSolver()).Front);
+            }
+            catch (Exception e) when (Breakdown(e) is { } cause)
+            {
+                throw new FitBreakdownError($"the epsilon sweep broke down numerically ({cause.Message})", e);
+            }
             foreach (var p in front)
                 progress.Step($"  epsilon {p.EpsilonDeg:0.###} deg: shape RMS {p.ShapeRms * 1000:0.###} mm{(p.Converged ? "" : " (not converged)")}");
         }
         return new FitStageResult(fit, front);
     }
+
+    /// <summary>The numerical failure inside <paramref name="e"/> (parallel starts wrap it), or null.</summary>
+    private static Exception? Breakdown(Exception e) => e switch
+    {
+        AggregateException a => a.InnerExceptions.Select(Breakdown).FirstOrDefault(x => x is not null),
+        NotPositiveDefiniteException or ArithmeticException => e,
+        _ => null,
+    };
 }

@@ -75,6 +75,15 @@ internal static partial class CliHarness
                 if (!valid) problems.Add("build: exit 0 for a job the loader refuses");
                 if (!File.Exists(Path.Combine(outDir, "summary.json"))) problems.Add("build: exit 0 but no summary.json");
             }
+            else if (b.Code == ExitCodes.NotConverged && valid)
+            {
+                // An honest "the fit did not converge": one line, and at most the target files and a
+                // summary that says so (never sheets).
+                var lines = b.Err.Split('\n', StringSplitOptions.RemoveEmptyEntries);
+                if (lines.Length != 1 || !lines[0].StartsWith("tessel: ", StringComparison.Ordinal))
+                    problems.Add($"build: exit 2 without exactly one 'tessel: ' line: {b.Err.Trim()}");
+                if (Directory.Exists(Path.Combine(outDir, "sheets"))) problems.Add("build: exit 2 but sheets were written");
+            }
             else
             {
                 // A valid job may still fail in a later stage; it must then fail cleanly too.

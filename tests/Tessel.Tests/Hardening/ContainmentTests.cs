@@ -62,7 +62,9 @@ public class ContainmentTests
             string outDir = Path.Combine(root, "out-" + name);
             var before = Snapshot(root);
             var r = CliHarness.Run("build", file, "--out", outDir, "--quiet");
-            Assert.True(r.Code == ExitCodes.Ok, r.Err);
+            // A fit that does not converge on this small test roof still writes its target files and
+            // summary (exit 2); either way every file must land in the output folder.
+            Assert.True(r.Code is ExitCodes.Ok or ExitCodes.NotConverged, r.Err);
             var after = Snapshot(root);
             var added = after.Keys.Except(before.Keys).Order(StringComparer.Ordinal).ToList();
             Assert.NotEmpty(added);

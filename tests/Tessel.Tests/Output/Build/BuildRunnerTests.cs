@@ -82,10 +82,28 @@ public class BuildRunnerTests
     [InlineData("saddle-canopy.json")]
     [InlineData("shallow-dome.json")]
     [InlineData("barrel-vault.json")]
-    public void EveryPatternBuilds(string file)
+    public void EveryPatternBuildsCompletelyAndRepeatsByteForByte(string file)
     {
-        var job = JobLoader.Load(Path.Combine(TestPaths.Patterns, file)) with { Outputs = new OutputsSpec(false, false, false, false, false, false, false) };
-        var output = BuildRunner.Collect(job, ProgressReporter.Silent);
-        Assert.Contains(output.Figures, f => f.Section == "target" && f.Name == "maxHeightM");
+        var job = JobLoader.Load(Path.Combine(TestPaths.Patterns, file));
+        string a = TestPaths.NewTempFolder(), b = TestPaths.NewTempFolder();
+        var first = BuildRunner.Run(job, a, ProgressReporter.Silent);
+        var second = BuildRunner.Run(job, b, ProgressReporter.Silent);
+        Assert.Null(first.Problem);
+        Assert.Equal(first.Files.Select(f => f.Path), second.Files.Select(f => f.Path));
+        foreach (var (name, _) in first.Files)
+            Assert.True(File.ReadAllBytes(Path.Combine(a, name)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(b, name))), $"{file}: {name} differs between two builds");
+        foreach (var expected in new[] { "folded.obj", "fold-angles.csv", "crease-pattern.svg", "sheets/sheets.pdf", "sheets/sheet-01.svg", "sheets/sheet-01.dxf", "report.html", "summary.md" })
+            Assert.Contains(expected, first.Files.Select(f => f.Path));
+
+        using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(a, "summary.json")));
+        var fit = summary.RootElement.GetProperty("figures").GetProperty("fit");
+        Assert.True(fit.GetProperty("converged").GetBoolean());
+        // Developability, Kawasaki and planarity at epsilon = 0 (geometry.md section 1: Hull 2020;
+        // Kawasaki 1989; Justin 1986), all to 1e-9.
+        Assert.True(fit.GetProperty("maxDevelopabilityRad").GetDouble() <= 1e-9);
+        Assert.True(fit.GetProperty("maxKawasakiRad").GetDouble() <= 1e-9);
+        Assert.True(fit.GetProperty("maxPlanarityScaled").GetDouble() <= 1e-9);
+        var checks = summary.RootElement.GetProperty("figures").GetProperty("checks");
+        Assert.Equal(0, checks.GetProperty("collisions").GetInt64());
     }
 }
