@@ -160,24 +160,36 @@ public static class BuildRunner
         {
             throw new OutputNotWritableError(root, e.Message, e);
         }
+        // Two phases, so that a build stopped at any point leaves the previous outputs as they were:
+        // every file goes to a temporary name first; only when all are on disk are they renamed, the
+        // summary last. The rename phase is a few metadata operations.
+        // Temporary files of an earlier build that was stopped mid-write are ours to remove.
+        foreach (var stale in Directory.EnumerateFiles(root, ".*.partial", SearchOption.AllDirectories)) AtomicFile.Discard(stale);
         var written = new List<(string, long)>();
+        var pending = new List<(string Temp, string Full, string Rel, long Bytes)>();
         string prefix = root.EndsWith(Path.DirectorySeparatorChar) ? root : root + Path.DirectorySeparatorChar;
-        foreach (var (rel, bytes) in output.Files.Append((SummaryFile, output.SummaryJson(job.Name, job.Description))))
+        try
         {
-            string full = Path.GetFullPath(Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar)));
-            if (!full.StartsWith(prefix, StringComparison.Ordinal))
-                throw new InvalidOperationException($"refusing to write outside the output folder: {rel}");
-            try
+            foreach (var (rel, bytes) in output.Files.Append((SummaryFile, output.SummaryJson(job.Name, job.Description))))
             {
+                string full = Path.GetFullPath(Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar)));
+                if (!full.StartsWith(prefix, StringComparison.Ordinal))
+                    throw new InvalidOperationException($"refusing to write outside the output folder: {rel}");
                 Directory.CreateDirectory(Path.GetDirectoryName(full)!);
-                AtomicFile.Write(full, bytes);
+                pending.Add((AtomicFile.WriteTemporary(full, bytes), full, rel, bytes.Length));
             }
-            catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+            foreach (var (temp, full, rel, bytes) in pending)
             {
-                throw new OutputNotWritableError(root, e.Message, e);
+                AtomicFile.Commit(temp, full);
+                progress.Step($"{rel} ({bytes} bytes)");
+                written.Add((rel, bytes));
             }
-            progress.Step($"{rel} ({bytes.Length} bytes)");
-            written.Add((rel, bytes.Length));
+        }
+        catch (Exception e)
+        {
+            foreach (var p in pending) AtomicFile.Discard(p.Temp);
+            if (e is IOException or UnauthorizedAccessException) throw new OutputNotWritableError(root, e.Message, e);
+            throw;
         }
         return new BuildResult(root, written);
     }
