@@ -9,7 +9,7 @@ namespace Tessel.Core.Fitting.Sparse;
 /// first call. Fill-in stays inside the envelope, so row i of L is the contiguous run of columns
 /// first[i]..i and every inner product is a dense dot product of two contiguous runs.
 /// </remarks>
-public sealed class SkylineCholesky
+public sealed class SkylineCholesky : ICholeskyFactor
 {
     private readonly int n;
     private readonly int[] oldToNew;

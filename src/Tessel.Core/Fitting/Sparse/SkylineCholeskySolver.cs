@@ -1,65 +1,13 @@
 namespace Tessel.Core.Fitting.Sparse;
 
-/// <summary>Direct solver: reverse Cuthill-McKee ordering and skyline Cholesky (<see cref="SkylineCholesky"/>).
-/// The symbolic analysis is cached per matrix pattern (reference identity of RowStart and
-/// ColumnIndices), so refactorising a refilled matrix costs only the numeric step.</summary>
-/// <remarks>Throws <see cref="NotPositiveDefiniteException"/> (with the failing row) when A is not
-/// positive definite: a wrong answer is never returned silently. One step of iterative refinement is
-/// taken when the first solution's relative residual exceeds 1e-12.</remarks>
-public sealed class SkylineCholeskySolver : ISpdSolver
+/// <summary>Direct solver: reverse Cuthill-McKee ordering and skyline Cholesky (<see cref="SkylineCholesky"/>);
+/// caching and refinement as in <see cref="CachedFactorSolver{TFactor}"/>.</summary>
+public sealed class SkylineCholeskySolver : CachedFactorSolver<SkylineCholesky>
 {
     /// <summary>Name reported in <see cref="SolveStats.Method"/>.</summary>
     public const string MethodName = "skyline-cholesky-rcm";
 
-    private SkylineCholesky? analysis;
-    private double[] residual = [], correction = [];
+    protected override string Method => MethodName;
 
-    /// <summary>The cached analysis of the last pattern solved (null before the first solve).</summary>
-    public SkylineCholesky? Analysis => analysis;
-
-    /// <summary>The symbolic analysis for <paramref name="a"/>'s pattern: the cached one when the pattern
-    /// is the same, else a new one (which replaces the cache).</summary>
-    public SkylineCholesky AnalysisFor(CsrMatrix a)
-    {
-        if (analysis is null || !analysis.Matches(a)) analysis = SkylineCholesky.Analyze(a);
-        return analysis;
-    }
-
-    /// <summary>Solves A x = b; the incoming x is ignored. Iterations counts solves with the factor (1 or 2).</summary>
-    public SolveStats Solve(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x)
-    {
-        int n = a.Rows;
-        if (a.Columns != n || b.Length != n || x.Length != n) throw new ArgumentException("A must be n x n, b and x of length n");
-        var factor = AnalysisFor(a);
-        factor.Factorize(a);
-        factor.Solve(b, x);
-        if (residual.Length != n) { residual = new double[n]; correction = new double[n]; }
-
-        double bNorm = Norm(b);
-        double relative = RelativeResidual(a, b, x, bNorm);
-        int solves = 1;
-        if (relative > 1e-12)
-        {
-            factor.Solve(residual, correction);
-            for (int i = 0; i < n; i++) x[i] += correction[i];
-            relative = RelativeResidual(a, b, x, bNorm);
-            solves++;
-        }
-        return new SolveStats(MethodName, solves, relative, true);
-    }
-
-    /// <summary>|b - A x| / |b| (0 when b = 0), leaving b - A x in <see cref="residual"/>.</summary>
-    private double RelativeResidual(CsrMatrix a, ReadOnlySpan<double> b, ReadOnlySpan<double> x, double bNorm)
-    {
-        a.Multiply(x, residual);
-        for (int i = 0; i < residual.Length; i++) residual[i] = b[i] - residual[i];
-        return bNorm > 0 ? Norm(residual) / bNorm : Norm(residual);
-    }
-
-    private static double Norm(ReadOnlySpan<double> v)
-    {
-        double s = 0;
-        for (int i = 0; i < v.Length; i++) s += v[i] * v[i];
-        return Math.Sqrt(s);
-    }
+    protected override SkylineCholesky Analyze(CsrMatrix a) => SkylineCholesky.Analyze(a);
 }

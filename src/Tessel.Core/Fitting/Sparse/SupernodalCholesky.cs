@@ -12,7 +12,7 @@ namespace Tessel.Core.Fitting.Sparse;
 /// (extend-add), factorise its columns densely, and push the Schur complement for its parent. All dense
 /// work is dot products of contiguous rows (row-major blocks), done in a fixed order: same input, same bits.
 /// </remarks>
-public sealed class SupernodalCholesky
+public sealed class SupernodalCholesky : ICholeskyFactor
 {
     private readonly int n;
     private readonly int[] patternRowStart;
