@@ -429,6 +429,7 @@ public static partial class JobLoader
 
         Positive(r.PathOf("scale"), scale, "number n of the scale 1:n", required: true);
         if (string.IsNullOrWhiteSpace(material)) throw new JobError(r.PathOf("material"), "must name a material; see 'tessel catalog materials'");
+        CheckChoice(r.PathOf("material"), material, Catalog.Materials.Select(m => m.Name));
         CheckChoice(fm.PathOf("mountain"), mountain, Catalog.FoldMethods.Select(f => f.Name));
         CheckChoice(fm.PathOf("valley"), valley, Catalog.FoldMethods.Select(f => f.Name));
         SheetSpec sheet;

@@ -98,10 +98,12 @@ public static class SheetStage
         return new SheetStageResult(settings, styles, layout, annotated, cover);
     }
 
-    private static FoldMethod MethodOf(string method) => method switch
+    /// <summary>The job's fold method; null ("material") leaves the material preset's choice.</summary>
+    private static FoldMethod? MethodOf(string method) => method switch
     {
+        "score" => FoldMethod.Score,
         "perforate" => FoldMethod.Perforate,
         "two-sided" => FoldMethod.ScoreFromBack,
-        _ => FoldMethod.Score,
+        _ => null,
     };
 }

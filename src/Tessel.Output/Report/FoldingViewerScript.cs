@@ -205,9 +205,20 @@ internal static class FoldingViewerScript
     ctx.fillStyle = '#2a2a30';
     ctx.font = '12px sans-serif';
     ctx.textAlign = 'right';
-    ctx.fillText(mm(data.barMax) + ' mm', left - 6, top + 8);
-    ctx.fillText(mm(data.barMin) + ' mm', left - 6, top + height);
-    ctx.fillText('full scale', left + 16, top + height + 18);
+    // A pale halo keeps the labels readable where the model is drawn behind them.
+    haloText(mm(data.barMax) + ' mm', left - 6, top + 8);
+    haloText(mm(data.barMin) + ' mm', left - 6, top + height);
+    haloText('full scale', left + 16, top + height + 18);
+  }
+
+  function haloText(text, x, y) {
+    ctx.save();
+    ctx.lineWidth = 4;
+    ctx.lineJoin = 'round';
+    ctx.strokeStyle = 'rgba(246, 245, 241, 0.92)';
+    ctx.strokeText(text, x, y);
+    ctx.restore();
+    ctx.fillText(text, x, y);
   }
 
   function mm(metres) {

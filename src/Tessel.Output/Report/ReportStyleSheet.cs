@@ -21,7 +21,8 @@ section h2 { margin: 0 0 10px; font-size: 16px; font-weight: 600; color: var(--a
 .hint { color: var(--muted); font-size: 13px; margin: 6px 0 0; }
 table { border-collapse: collapse; width: 100%; font-size: 14px; }
 td { padding: 5px 8px; border-bottom: 1px solid var(--rule); vertical-align: top; }
-td:last-child { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td:last-child { text-align: right; font-variant-numeric: tabular-nums; overflow-wrap: anywhere; }
+td:first-child { width: 38%; }
 .warnings { background: var(--warn-bg); border-color: #e6c891; }
 .warnings h2 { color: var(--warn); }
 ul { margin: 0; padding-left: 1.2em; }
