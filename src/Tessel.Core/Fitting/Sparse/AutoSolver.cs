@@ -23,7 +23,7 @@ public enum DirectFactorization
 /// clearly at damping 1e-2, the direct solvers at 1e-4 and below. After a stall the policy stays direct
 /// for the same pattern for <see cref="StickyDirectSolves"/> further solves, because consecutive LM steps
 /// have similar conditioning. The choice depends only on the inputs and the call sequence, never on
-/// timing, so results stay reproducible.
+/// timing, so results stay reproducible. An instance caches analyses and scratch: use one per thread.
 /// </remarks>
 public sealed class AutoSolver : ISpdSolver
 {

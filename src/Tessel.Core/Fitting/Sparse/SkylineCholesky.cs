@@ -8,6 +8,7 @@ namespace Tessel.Core.Fitting.Sparse;
 /// (<see cref="TryFactorize"/>, once per matrix): fill, factorise in place, with no allocation after the
 /// first call. Fill-in stays inside the envelope, so row i of L is the contiguous run of columns
 /// first[i]..i and every inner product is a dense dot product of two contiguous runs.
+/// An instance keeps its factor and scratch: use one per thread.
 /// </remarks>
 public sealed class SkylineCholesky : ICholeskyFactor
 {

@@ -6,11 +6,12 @@ namespace Tessel.Core.Fitting.Sparse;
 /// method because nested dissection keeps the fill at O(n log n).</summary>
 /// <remarks>
 /// Symbolic part (<see cref="Analyze(CsrMatrix)"/>, once per pattern): ordering, elimination tree (Liu
-/// 1986), its postorder, column counts by row subtrees, fundamental supernodes and their row structures,
-/// and the peak size of the update-matrix stack. Numeric part (<see cref="TryFactorize"/>): for every
+/// 1986), its postorder, column counts by row subtrees, fundamental supernodes merged by relaxed
+/// amalgamation, their row structures, and the peak size of the update-matrix stack. Numeric part (<see cref="TryFactorize"/>): for every
 /// supernode in postorder, assemble its frontal matrix from A and the children's update matrices
 /// (extend-add), factorise its columns densely, and push the Schur complement for its parent. All dense
 /// work is dot products of contiguous rows (row-major blocks), done in a fixed order: same input, same bits.
+/// An instance keeps its factor and scratch: use one per thread.
 /// </remarks>
 public sealed class SupernodalCholesky : ICholeskyFactor
 {
