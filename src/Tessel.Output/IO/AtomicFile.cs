@@ -8,23 +8,14 @@ public static class AtomicFile
     /// <exception cref="IOException">Or <see cref="UnauthorizedAccessException"/> when the folder is not writable.</exception>
     public static void Write(string path, ReadOnlySpan<byte> bytes)
     {
-        string full = Path.GetFullPath(path);
-        string dir = Path.GetDirectoryName(full) ?? ".";
-        // Same folder, so the rename stays on one file system and is atomic; dot-prefixed and marked so
-        // a crash leaves something recognisable.
-        string temp = Path.Combine(dir, "." + Path.GetFileName(full) + "." + Environment.ProcessId + ".partial");
+        string temp = WriteTemporary(path, bytes);
         try
         {
-            using (var fs = new FileStream(temp, FileMode.Create, FileAccess.Write, FileShare.None))
-            {
-                fs.Write(bytes);
-                fs.Flush(true);
-            }
-            File.Move(temp, full, overwrite: true);
+            Commit(temp, path);
         }
         catch
         {
-            try { if (File.Exists(temp)) File.Delete(temp); } catch (IOException) { } catch (UnauthorizedAccessException) { }
+            Discard(temp);
             throw;
         }
     }

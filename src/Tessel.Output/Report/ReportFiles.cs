@@ -43,11 +43,5 @@ public static class ReportFiles
     }
 
     /// <summary>Writes bytes to a temporary name beside <paramref name="path"/>, then renames it over the target.</summary>
-    public static void WriteAtomically(string path, byte[] bytes)
-    {
-        string full = Path.GetFullPath(path);
-        string temp = Path.Combine(Path.GetDirectoryName(full)!, "." + Path.GetFileName(full) + ".tmp");
-        File.WriteAllBytes(temp, bytes);
-        File.Move(temp, full, overwrite: true);
-    }
+    public static void WriteAtomically(string path, byte[] bytes) => IO.AtomicFile.Write(path, bytes);
 }

@@ -65,14 +65,8 @@ public static class StlWriter
 
     /// <summary>Writes the STL to <paramref name="path"/> through a temporary file in the same folder
     /// and a rename, so readers never see a half-written file.</summary>
-    public static void WriteFile(string path, double[] positions, int[][] faces, double scaleDenominator)
-    {
-        var bytes = ToBytes(positions, faces, scaleDenominator);
-        string full = Path.GetFullPath(path);
-        string temp = Path.Combine(Path.GetDirectoryName(full)!, "." + Path.GetFileName(full) + ".tmp");
-        File.WriteAllBytes(temp, bytes);
-        File.Move(temp, full, overwrite: true);
-    }
+    public static void WriteFile(string path, double[] positions, int[][] faces, double scaleDenominator) =>
+        IO.AtomicFile.Write(path, ToBytes(positions, faces, scaleDenominator));
 
     private static int Put(byte[] bytes, int at, Vec3 v)
     {
