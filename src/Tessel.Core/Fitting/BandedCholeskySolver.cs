@@ -9,6 +9,10 @@ namespace Tessel.Core.Fitting;
 /// grid problems numbered row by row up to a few tens of thousands of unknowns.</summary>
 internal sealed class BandedCholeskySolver : ISpdSolver
 {
+    private double[] _factor = [];
+    private int _n = -1, _bw;
+    private CsrMatrix? _factored;
+
     public SolveStats Solve(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x)
     {
         int n = a.Rows;
@@ -16,7 +20,10 @@ internal sealed class BandedCholeskySolver : ISpdSolver
         for (int i = 0; i < n; i++)
             if (a.RowStart[i + 1] > a.RowStart[i]) bw = Math.Max(bw, i - a.ColumnIndices[a.RowStart[i]]);
         int w = bw + 1;
-        var l = new double[(long)n * w];
+        _factored = null;
+        if (_factor.LongLength != (long)n * w) _factor = new double[(long)n * w];
+        else Array.Clear(_factor);
+        var l = _factor;
         for (int i = 0; i < n; i++)
             for (int k = a.RowStart[i]; k < a.RowStart[i + 1]; k++)
             {
@@ -40,6 +47,23 @@ internal sealed class BandedCholeskySolver : ISpdSolver
                 }
             }
         }
+        _factored = a; _n = n; _bw = bw;
+        Substitute(b, x);
+        return new SolveStats("banded-cholesky", 1, 0, true);
+    }
+
+    /// <summary>Triangular solves with the factor of the last successful <see cref="Solve"/>.</summary>
+    public SolveStats SolveAgain(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x)
+    {
+        if (!ReferenceEquals(a, _factored) || a.Rows != _n) return Solve(a, b, x);
+        Substitute(b, x);
+        return new SolveStats("banded-cholesky", 1, double.NaN, true);
+    }
+
+    private void Substitute(ReadOnlySpan<double> b, Span<double> x)
+    {
+        int n = _n, bw = _bw, w = bw + 1;
+        var l = _factor;
         var y = new double[n];
         for (int i = 0; i < n; i++)
         {
@@ -57,7 +81,6 @@ internal sealed class BandedCholeskySolver : ISpdSolver
             for (int k = Math.Max(0, i - bw); k < i; k++) y[k] -= l[ri + (k - i + bw)] * s;
         }
         y.CopyTo(x);
-        return new SolveStats("banded-cholesky", 1, 0, true);
     }
 
     private static double Dot(double[] data, long p, long q, int len)

@@ -142,12 +142,58 @@ internal sealed class BlockNormalSystem
         return max;
     }
 
+    /// <summary>grad_r . step over the row's free vertices (the row's linearised change).</summary>
+    public double RowDirectional(int r, double[] grad, double[] step)
+    {
+        double sum = 0;
+        for (int k = _rows.Start[r]; k < _rows.Start[r + 1]; k++)
+        {
+            int a = FreeIndex[_rows.Vertices[k]];
+            if (a < 0) continue;
+            sum += grad[3 * k] * step[3 * a] + grad[3 * k + 1] * step[3 * a + 1] + grad[3 * k + 2] * step[3 * a + 2];
+        }
+        return sum;
+    }
+
+    /// <summary>rhs -= coefficient * grad_r over the row's free vertices.</summary>
+    public void SubtractRowGradient(int r, double coefficient, double[] grad, double[] rhs)
+    {
+        for (int k = _rows.Start[r]; k < _rows.Start[r + 1]; k++)
+        {
+            int a = FreeIndex[_rows.Vertices[k]];
+            if (a < 0) continue;
+            for (int i = 0; i < 3; i++) rhs[3 * a + i] -= coefficient * grad[3 * k + i];
+        }
+    }
+
+    /// <summary>Adds <paramref name="scale"/> times a row's Hessian (3nv x 3nv, row-major, in the row's
+    /// vertex order) to the matrix: the constraint-curvature term lambda_r grad^2 g_r of the Lagrangian.</summary>
+    public void AddRowHessian(int r, double scale, double[] hess)
+    {
+        var values = Matrix.Values;
+        int s0 = _rows.Start[r], nv = _rows.Start[r + 1] - s0, p = _pairStart[r], m = 3 * nv;
+        for (int k = 0; k < nv; k++)
+            for (int q = 0; q < nv; q++, p++)
+            {
+                int slot = _pairSlot[p];
+                if (slot < 0) continue;
+                int b0 = _slotBase[slot], stride = _slotStride[slot];
+                for (int i = 0; i < 3; i++)
+                {
+                    int row = b0 + i * stride, h = (3 * k + i) * m + 3 * q;
+                    values[row] += scale * hess[h];
+                    values[row + 1] += scale * hess[h + 1];
+                    values[row + 2] += scale * hess[h + 2];
+                }
+            }
+    }
+
     /// <summary>Adds lambda * (diag_i + floor) to every diagonal entry (Marquardt scaling with a floor
     /// so that directions no row touches stay positive definite).</summary>
     public void Damp(double lambda, double floor)
     {
         var values = Matrix.Values;
-        foreach (int d in _diag) values[d] += lambda * (values[d] + floor);
+        foreach (int d in _diag) values[d] += lambda * (Math.Abs(values[d]) + floor);
     }
 
     /// <summary>Copies a step over the free unknowns into a full #V*3 position update.</summary>

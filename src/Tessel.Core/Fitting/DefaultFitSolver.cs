@@ -28,4 +28,7 @@ internal sealed class DefaultFitSolver : ISpdSolver
         }
         return _useBand ? _banded.Solve(a, b, x) : _supernodal.Solve(a, b, x);
     }
+
+    public SolveStats SolveAgain(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x) =>
+        _useBand ? _banded.SolveAgain(a, b, x) : _supernodal.SolveAgain(a, b, x);
 }

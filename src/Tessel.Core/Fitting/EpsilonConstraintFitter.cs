@@ -9,8 +9,10 @@ namespace Tessel.Core.Fitting;
 /// Lasdon &amp; Wismer, IEEE Trans. SMC-1, 1971): phase 1 minimises constraint violation from the start;
 /// phase 2 minimises shape error + fairness subject to |developability| &lt;= epsilon and every other
 /// constraint, by an augmented Lagrangian (Powell-Hestenes-Rockafellar multipliers for interval
-/// constraints) with Levenberg-Marquardt inner steps on the sparse normal equations; a final
-/// Gauss-Newton projection lands the constraints at round-off level.</summary>
+/// constraints). Its inner steps are damped Newton steps on the sparse system: Gauss-Newton for the
+/// objective plus the constraints' curvature sum_r lambda_r grad^2 g_r, each followed by a second-order
+/// correction with the same factor (Nocedal &amp; Wright, Numerical Optimization, 2nd ed., 2006, sections
+/// 17.3 and 15.6). A final Gauss-Newton projection lands the constraints at round-off level.</summary>
 public static class EpsilonConstraintFitter
 {
     /// <summary>One start from <paramref name="start"/> (#V*3; null = the draped positions).
@@ -119,17 +121,22 @@ internal sealed class FitRun
     }
 
     /// <summary>Levenberg-Marquardt on the phase's merit function until <paramref name="done"/> holds,
-    /// the budget is spent or steps stop helping (<paramref name="stalled"/>).</summary>
+    /// the budget is spent or steps stop helping (<paramref name="stalled"/>). Each step is followed by a
+    /// second-order correction with the same factor when that lowers the merit further.</summary>
     private void Minimise(string phase, int maxSolves, Func<bool> done, out bool stalled, double initialDamping = 1e-4, double stallDecrease = 1e-12)
     {
         stalled = false;
         double damping = phase == Optimality ? _damping : initialDamping;
         int used = 0, rejectedInRow = 0;
-        var rhs = new double[_system.Unknowns];
-        var step = new double[_system.Unknowns];
+        int n = _system.Unknowns;
+        var rhs = new double[n];
+        var step = new double[n];
+        var correction = new double[n];
         var trial = new double[_x.Length];
-        var trialValue = new double[_rows.RowCount];
-        var trialGrad = new double[_grad.Length];
+        var corrected = new double[_x.Length];
+        var savedValue = new double[_rows.RowCount];
+        var savedGrad = new double[_grad.Length];
+        var savedWeight = new double[_rows.RowCount];
         Evaluate(_x);
         double merit = Merit(phase);
         if (done()) return;
@@ -141,6 +148,7 @@ internal sealed class FitRun
             {
                 Merit(phase);
                 _system.Assemble(_weight, _residual, _grad, rhs);
+                if (phase == Optimality) AddConstraintCurvature();
                 undamped = (double[])_system.Matrix.Values.Clone();
                 assembled = true;
             }
@@ -149,17 +157,45 @@ internal sealed class FitRun
             foreach (var v in undamped!) maxDiag = Math.Max(maxDiag, Math.Abs(v));
             _system.Damp(damping, 1e-9 * maxDiag + 1e-300);
             Array.Clear(step);
-            long t0 = System.Diagnostics.Stopwatch.GetTimestamp();
-            var stats = _solver.Solve(_system.Matrix, rhs, step);
-            _solveSeconds += System.Diagnostics.Stopwatch.GetElapsedTime(t0).TotalSeconds;
-            _solves++; used++; _linearIterations += stats.Iterations; _method = stats.Method;
+            var stats = TimedSolve(rhs, step, again: false);
+            used++;
             _system.Apply(_x, step, trial);
+            _value.AsSpan().CopyTo(savedValue); _grad.AsSpan().CopyTo(savedGrad); _weight.AsSpan().CopyTo(savedWeight);
             double trialMerit = double.PositiveInfinity;
-            if (AllFinite(step))
+            // An indefinite system (the constraint curvature outweighs the damping) is a rejected step.
+            bool evaluated = stats.Converged && AllFinite(step);
+            if (evaluated)
             {
-                (_value.AsSpan()).CopyTo(trialValue); _grad.AsSpan().CopyTo(trialGrad);
                 Evaluate(trial);
                 trialMerit = Merit(phase);
+                // Second-order correction: the constraints' change along the step beyond their linear
+                // prediction, removed with the same factor (the remedy for the Maratos effect of a penalty merit).
+                var soc = new double[n];
+                bool any = false;
+                for (int r = _rows.FirstConstraint; r < _rows.RowCount; r++)
+                {
+                    double w = savedWeight[r];
+                    if (w == 0) continue;
+                    double predicted = savedValue[r] + _system.RowDirectional(r, savedGrad, step);
+                    double error = _value[r] - predicted;
+                    if (error == 0 || !double.IsFinite(error)) continue;
+                    _system.SubtractRowGradient(r, w * w * error, savedGrad, soc);
+                    any = true;
+                }
+                if (any)
+                {
+                    Array.Clear(correction);
+                    var again = TimedSolve(soc, correction, again: true);
+                    if (again.Converged && AllFinite(correction))
+                    {
+                        _system.Apply(trial, correction, corrected);
+                        var trialValue = (double[])_value.Clone(); var trialGrad = (double[])_grad.Clone();
+                        Evaluate(corrected);
+                        double correctedMerit = Merit(phase);
+                        if (correctedMerit < trialMerit) { (trial, corrected) = (corrected, trial); trialMerit = correctedMerit; }
+                        else { trialValue.CopyTo(_value, 0); trialGrad.CopyTo(_grad, 0); Merit(phase); }
+                    }
+                }
             }
             bool accept = trialMerit < merit;
             if (accept)
@@ -177,8 +213,7 @@ internal sealed class FitRun
             }
             else
             {
-                // Restore the values and gradients of the current point.
-                trialValue.AsSpan().CopyTo(_value); trialGrad.AsSpan().CopyTo(_grad);
+                savedValue.AsSpan().CopyTo(_value); savedGrad.AsSpan().CopyTo(_grad);
                 Merit(phase);
                 damping *= 4;
                 if (phase == Optimality) _damping = damping;
@@ -187,6 +222,38 @@ internal sealed class FitRun
             }
         }
     }
+
+    private SolveStats TimedSolve(double[] rhs, double[] x, bool again)
+    {
+        long t0 = Stopwatch.GetTimestamp();
+        SolveStats stats;
+        try { stats = again ? _solver.SolveAgain(_system.Matrix, rhs, x) : _solver.Solve(_system.Matrix, rhs, x); }
+        catch (NotPositiveDefiniteException) { stats = new SolveStats(_method, 0, double.PositiveInfinity, false); }
+        _solveSeconds += Stopwatch.GetElapsedTime(t0).TotalSeconds;
+        if (!again) _solves++;
+        _linearIterations += stats.Iterations;
+        if (stats.Converged) _method = stats.Method;
+        return stats;
+    }
+
+    /// <summary>Adds sum_r lambda_r grad^2 g_r over the active constraint rows, lambda_r = w_r * res_r being
+    /// the first-order multiplier estimate of the augmented Lagrangian (W * excess). Without it the steps
+    /// are Gauss-Newton on the merit and converge only linearly once the constraints push back.</summary>
+    private void AddConstraintCurvature()
+    {
+        int maxCoords = 0;
+        for (int r = _rows.FirstConstraint; r < _rows.RowCount; r++) maxCoords = Math.Max(maxCoords, 3 * (_rows.Start[r + 1] - _rows.Start[r]));
+        if (_hessian.Length < maxCoords * maxCoords) { _hessian = new double[maxCoords * maxCoords]; _g0 = new double[maxCoords]; _g1 = new double[maxCoords]; }
+        for (int r = _rows.FirstConstraint; r < _rows.RowCount; r++)
+        {
+            double lambda = _weight[r] * _residual[r];
+            if (lambda == 0) continue;
+            _rows.RowHessian(r, _x, _hessian, _g0, _g1);
+            _system.AddRowHessian(r, lambda, _hessian);
+        }
+    }
+
+    private double[] _hessian = [], _g0 = [], _g1 = [];
 
     private static bool AllFinite(double[] v)
     {

@@ -111,58 +111,89 @@ internal sealed class FitRows
     /// constraint rows give the constrained quantity g, to be held in [Lo, Hi].</summary>
     public void Evaluate(double[] xyz, double[] value, double[] grad)
     {
-        double invH = 1 / Scale;
         for (int r = 0; r < Kind.Length; r++)
         {
             int s0 = Start[r], nv = Start[r + 1] - s0;
-            var gr = grad.AsSpan(3 * s0, 3 * nv);
-            var vs = Vertices.AsSpan(s0, nv);
-            switch (Kind[r])
-            {
-                case ResidualKind.TopDistance:
-                case ResidualKind.BottomDistance:
-                {
-                    var sp = _target.ClosestPoint(Vec3.Read(xyz, vs[0]));
-                    double d = sp.SignedDistance + (Kind[r] == ResidualKind.BottomDistance ? _foldDepth : 0);
-                    value[r] = d * invH;
-                    (sp.Normal * invH).Write(gr, 0);
-                    break;
-                }
-                case ResidualKind.Fairness:
-                {
-                    var xc = Vec3.Read(xyz, vs[1]);
-                    var n = _target.NormalAt(xc.X, xc.Y);
-                    var lap = Vec3.Read(xyz, vs[0]) - 2 * xc + Vec3.Read(xyz, vs[2]);
-                    var t = lap - Vec3.Dot(lap, n) * n;
-                    int c = _aux[r];
-                    double w = _fairnessRoot * invH;
-                    value[r] = w * (c == 0 ? t.X : c == 1 ? t.Y : t.Z);
-                    // Row c of the tangential projector I - n n^T.
-                    var unit = c == 0 ? new Vec3(1, 0, 0) : c == 1 ? new Vec3(0, 1, 0) : Vec3.UnitZ;
-                    var prow = unit - (c == 0 ? n.X : c == 1 ? n.Y : n.Z) * n;
-                    (w * prow).Write(gr, 0); (-2 * w * prow).Write(gr, 1); (w * prow).Write(gr, 2);
-                    break;
-                }
-                case ResidualKind.Planarity:
-                    value[r] = QuadPlanarity.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
-                    break;
-                case ResidualKind.Kawasaki:
-                    value[r] = SectorAngleSums.Kawasaki(xyz, _stars[_aux[r]], gr);
-                    break;
-                case ResidualKind.Developability:
-                    value[r] = SectorAngleSums.Developability(xyz, _stars[_aux[r]], gr);
-                    break;
-                case ResidualKind.SectorAngleBound:
-                    value[r] = CornerAngle.Evaluate(xyz, vs[0], vs[1], vs[2], gr);
-                    break;
-                case ResidualKind.EdgeLengthBound:
-                    value[r] = EdgeLength.Evaluate(xyz, vs[0], vs[1], gr) * invH;
-                    for (int k = 0; k < 6; k++) gr[k] *= invH;
-                    break;
-                case ResidualKind.FoldAngleBound:
-                    value[r] = FoldAngle.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
-                    break;
-            }
+            value[r] = EvaluateRow(r, xyz, grad.AsSpan(3 * s0, 3 * nv));
         }
+    }
+
+    /// <summary>Value of row <paramref name="r"/> at <paramref name="xyz"/>; its gradient (3 per row vertex)
+    /// into <paramref name="gr"/>.</summary>
+    public double EvaluateRow(int r, double[] xyz, Span<double> gr)
+    {
+        double invH = 1 / Scale;
+        int s0 = Start[r], nv = Start[r + 1] - s0;
+        var vs = Vertices.AsSpan(s0, nv);
+        switch (Kind[r])
+        {
+            case ResidualKind.TopDistance:
+            case ResidualKind.BottomDistance:
+            {
+                var sp = _target.ClosestPoint(Vec3.Read(xyz, vs[0]));
+                double d = sp.SignedDistance + (Kind[r] == ResidualKind.BottomDistance ? _foldDepth : 0);
+                (sp.Normal * invH).Write(gr, 0);
+                return d * invH;
+            }
+            case ResidualKind.Fairness:
+            {
+                var xc = Vec3.Read(xyz, vs[1]);
+                var n = _target.NormalAt(xc.X, xc.Y);
+                var lap = Vec3.Read(xyz, vs[0]) - 2 * xc + Vec3.Read(xyz, vs[2]);
+                var t = lap - Vec3.Dot(lap, n) * n;
+                int c = _aux[r];
+                double w = _fairnessRoot * invH;
+                // Row c of the tangential projector I - n n^T.
+                var unit = c == 0 ? new Vec3(1, 0, 0) : c == 1 ? new Vec3(0, 1, 0) : Vec3.UnitZ;
+                var prow = unit - (c == 0 ? n.X : c == 1 ? n.Y : n.Z) * n;
+                (w * prow).Write(gr, 0); (-2 * w * prow).Write(gr, 1); (w * prow).Write(gr, 2);
+                return w * (c == 0 ? t.X : c == 1 ? t.Y : t.Z);
+            }
+            case ResidualKind.Planarity:
+                return QuadPlanarity.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
+            case ResidualKind.Kawasaki:
+                return SectorAngleSums.Kawasaki(xyz, _stars[_aux[r]], gr);
+            case ResidualKind.Developability:
+                return SectorAngleSums.Developability(xyz, _stars[_aux[r]], gr);
+            case ResidualKind.SectorAngleBound:
+                return CornerAngle.Evaluate(xyz, vs[0], vs[1], vs[2], gr);
+            case ResidualKind.EdgeLengthBound:
+            {
+                double value = EdgeLength.Evaluate(xyz, vs[0], vs[1], gr) * invH;
+                for (int k = 0; k < 6; k++) gr[k] *= invH;
+                return value;
+            }
+            case ResidualKind.FoldAngleBound:
+                return FoldAngle.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
+            default:
+                throw new InvalidOperationException($"row kind {Kind[r]} has no evaluator");
+        }
+    }
+
+    /// <summary>Symmetric Hessian of constraint row <paramref name="r"/> (3nv x 3nv, row-major, nv = row
+    /// vertices) by forward differences of its analytic gradient. Needed for the constraints' curvature
+    /// term sum_r lambda_r grad^2 g_r of the Lagrangian; differencing error ~1e-7 relative leaves the
+    /// Newton step's fast convergence intact. <paramref name="xyz"/> is perturbed and restored.</summary>
+    public void RowHessian(int r, double[] xyz, double[] hess, double[] g0, double[] g1)
+    {
+        int s0 = Start[r], nv = Start[r + 1] - s0, m = 3 * nv;
+        EvaluateRow(r, xyz, g0.AsSpan(0, m));
+        double step = 1e-7 * Scale;
+        for (int j = 0; j < m; j++)
+        {
+            int coordinate = 3 * Vertices[s0 + j / 3] + j % 3;
+            double saved = xyz[coordinate];
+            xyz[coordinate] = saved + step;
+            double actual = xyz[coordinate] - saved;
+            EvaluateRow(r, xyz, g1.AsSpan(0, m));
+            xyz[coordinate] = saved;
+            for (int i = 0; i < m; i++) hess[i * m + j] = (g1[i] - g0[i]) / actual;
+        }
+        for (int i = 0; i < m; i++)
+            for (int j = i + 1; j < m; j++)
+            {
+                double mean = 0.5 * (hess[i * m + j] + hess[j * m + i]);
+                hess[i * m + j] = mean; hess[j * m + i] = mean;
+            }
     }
 }

@@ -51,6 +51,14 @@ public abstract class CachedFactorSolver<TFactor> : ISpdSolver where TFactor : c
         return new SolveStats(Method, solves, relative, true);
     }
 
+    /// <summary>Triangular solves with the factor of the last <see cref="Solve"/> (no refinement).</summary>
+    public SolveStats SolveAgain(CsrMatrix a, ReadOnlySpan<double> b, Span<double> x)
+    {
+        if (analysis is null || !analysis.Matches(a)) return Solve(a, b, x);
+        analysis.Solve(b, x);
+        return new SolveStats(Method, 1, double.NaN, true);
+    }
+
     /// <summary>|b - A x| / |b| (plain |b - A x| when b = 0), leaving b - A x in <see cref="residual"/>.</summary>
     private double RelativeResidual(CsrMatrix a, ReadOnlySpan<double> b, ReadOnlySpan<double> x, double bNorm)
     {

@@ -12,7 +12,10 @@ public sealed class DenseOracleSolver : ISpdSolver
         for (int r = 0; r < a.Rows; r++)
             for (int k = a.RowStart[r]; k < a.RowStart[r + 1]; k++) dense[r, a.ColumnIndices[k]] = a.Values[k];
         var rhs = DenseVector.OfArray(b.ToArray());
-        var sol = dense.Cholesky().Solve(rhs);
+        MathNet.Numerics.LinearAlgebra.Factorization.Cholesky<double> cholesky;
+        try { cholesky = dense.Cholesky(); }
+        catch (ArgumentException) { return new SolveStats("dense-cholesky", 0, double.PositiveInfinity, false); }
+        var sol = cholesky.Solve(rhs);
         sol.AsArray().CopyTo(x);
         double res = (dense * sol - rhs).L2Norm() / Math.Max(rhs.L2Norm(), double.Epsilon);
         return new SolveStats("dense-cholesky", 1, res, true);

@@ -49,9 +49,10 @@ public class FreeTriangulatedTests
         Assert.True(r.Converged, r.StopReason);
         Assert.InRange(AngleDefects.MaxInterior(r.Mesh), 0, 1e-9);
         Assert.InRange(r.Residuals.MaxDevelopability, 0, 1e-9);
-        // Measured 34 mm RMS with the fitter's defaults (21 mm with a 1e-3 round stop) on a 1 m square
-        // of a 1.5 m sphere (sag 0.18 m), 6 x 6 cells of 0.17 m.
-        Assert.InRange(r.Shape.Rms, 0.005, 0.04);
+        // Measured on a 1 m square of a 1.5 m sphere (sag 0.18 m), 6 x 6 cells of 0.17 m: 34 mm RMS with the
+        // Gauss-Newton fitter, 42 mm with the second-order one (another local optimum of a free net; both
+        // exactly developable). The band only says "deviates, as Gauss-Bonnet demands, but follows the cap".
+        Assert.InRange(r.Shape.Rms, 0.005, 0.05);
     }
 
     [Fact]
