@@ -79,9 +79,11 @@ internal sealed class FitRun
         // Phase 1: constraint violation only, from the start.
         double tolerance = _s.ConstraintTolerance;
         // Phase 1a with a faint pull to the surfaces (well conditioned, lands near the constraint set),
-        // phase 1b pure Gauss-Newton on the violation (lands on it).
+        // phase 1b pure Gauss-Newton on the violation (lands on it). On large sheets the pulled point can
+        // sit away from the constraints along slow, sheet-wide modes: 1b then needs tens of steps (measured:
+        // 28 at 40 x 40 cells, 2-5 up to 24 x 24) and stops as soon as it lands.
         Minimise(Feasibility, Math.Max(1, Math.Min(15, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
-        Minimise(Projection, Math.Max(1, Math.Min(10, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
+        Minimise(Projection, Math.Max(1, Math.Min(60, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
 
         // Phase 2: epsilon-constraint problem by augmented Lagrangian rounds.
         Evaluate(_x);
