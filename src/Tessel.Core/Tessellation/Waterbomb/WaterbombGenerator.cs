@@ -44,20 +44,18 @@ public static class WaterbombGenerator
 
         var (plan, faces) = FlatLayout(bases, rows, w, h);
         int nx = 2 * bases + 1, gridCount = nx * (rows + 1), n = plan.Length / 2;
-        var pos = new double[3 * n];
-        var layers = new VertexLayer[n];
-        double tuck = (p.Tuck ?? DevelopableTuck(w, h, p.FoldDepth)) * h;
-        for (int v = 0; v < n; v++)
+        double planeTuck = DevelopableTuck(w, h, p.FoldDepth);
+
+        // A vertex of the drape with its midline end tucked by `tuck` (fraction of h): centres on the
+        // target, grid vertices FoldDepth below it along the normal. The outer row lines are tucked as
+        // if the tessellation went on, so every interior vertex starts developable on a plane; they
+        // overhang the footprint by the tuck.
+        Vec3 Place(int v, double tuck)
         {
             double x = fp.MinX + plan[2 * v], y = fp.MinY + plan[2 * v + 1];
             bool centre = v >= gridCount;
-            if (!centre)
-            {
-                int k = v % nx, j = v / nx;
-                // Midline end of the row above (k + j odd) or of the row below (even), where that row exists.
-                if ((k + j) % 2 == 1 && j < rows) y += tuck;
-                else if ((k + j) % 2 == 0 && j > 0) y -= tuck;
-            }
+            // Midline end of the row above (k + j odd) or of the row below (even).
+            if (!centre) y += ((v % nx + v / nx) % 2 == 1 ? 1 : -1) * tuck * h;
             var sample = double.IsFinite(target.HeightAt(x, y))
                 ? new Vec2(x, y)
                 : new Vec2(Math.Clamp(x, fp.MinX, fp.MaxX), Math.Clamp(y, fp.MinY, fp.MaxY));
@@ -65,8 +63,34 @@ public static class WaterbombGenerator
             if (!double.IsFinite(z))
                 throw new ArgumentException($"the sheet reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller footprint or a target that covers it", nameof(target));
             var onTarget = new Vec3(x, y, z);
-            (centre ? onTarget : onTarget - p.FoldDepth * target.NormalAt(sample.X, sample.Y)).Write(pos, v);
-            layers[v] = centre ? VertexLayer.Top : VertexLayer.Bottom;
+            return centre ? onTarget : onTarget - p.FoldDepth * target.NormalAt(sample.X, sample.Y);
+        }
+
+        var ring = CentreRings(faces, n, gridCount);
+        var tucks = new double[n];
+        if (p.Tuck is double uniform) Array.Fill(tucks, uniform);
+        else
+        {
+            // Graded: each centre gets the tuck that closes its own angle sum on the target (its ring
+            // tucked alike); a grid vertex takes the mean of the centres around it.
+            var sum = new double[n];
+            var count = new int[n];
+            for (int c = gridCount; c < n; c++)
+                if (ring[c].Length == 6) tucks[c] = GradedTuck(c, ring[c], Place, planeTuck);
+            // A half base on the sheet's edge has no angle sum to close: it copies the next centre in its
+            // row (numbered consecutively along the row).
+            for (int c = gridCount; c < n; c++)
+                if (ring[c].Length != 6) tucks[c] = tucks[plan[2 * c] < 0.5 * w ? c + 1 : c - 1];
+            for (int c = gridCount; c < n; c++)
+                foreach (int v in ring[c]) { sum[v] += tucks[c]; count[v]++; }
+            for (int v = 0; v < gridCount; v++) tucks[v] = count[v] > 0 ? sum[v] / count[v] : planeTuck;
+        }
+        var pos = new double[3 * n];
+        var layers = new VertexLayer[n];
+        for (int v = 0; v < n; v++)
+        {
+            Place(v, tucks[v]).Write(pos, v);
+            layers[v] = v >= gridCount ? VertexLayer.Top : VertexLayer.Bottom;
         }
         var mesh = RegularMiuraSheet.AssignRolesFromGeometry(
             new CreaseMesh("waterbomb", pos, faces, layers, (_, _) => CreaseRole.Flat));
@@ -112,6 +136,52 @@ public static class WaterbombGenerator
             sum += Math.Atan2(Vec3.Cross(a, b).Length, Vec3.Dot(a, b));
         }
         return sum;
+    }
+
+    /// <summary>Bisection on the tuck of one centre's closed star so that its angle sum is 2 pi on the
+    /// target; the plane's tuck where the target leaves no root in [0, 0.5).</summary>
+    private static double GradedTuck(int centre, int[] ring, Func<int, double, Vec3> place, double planeTuck)
+    {
+        double AngleSum(double t)
+        {
+            var c = place(centre, t);
+            double total = 0;
+            for (int i = 0; i < ring.Length; i++)
+            {
+                Vec3 a = place(ring[i], t) - c, b = place(ring[(i + 1) % ring.Length], t) - c;
+                total += Math.Atan2(Vec3.Cross(a, b).Length, Vec3.Dot(a, b));
+            }
+            return total;
+        }
+        double lo = 0, hi = 0.4999;
+        if (AngleSum(lo) > 2 * Math.PI || AngleSum(hi) < 2 * Math.PI) return planeTuck;
+        for (int i = 0; i < 50; i++)
+        {
+            double mid = 0.5 * (lo + hi);
+            if (AngleSum(mid) < 2 * Math.PI) lo = mid; else hi = mid;
+        }
+        return 0.5 * (lo + hi);
+    }
+
+    /// <summary>The grid vertices around each centre in angular order (any start; the angle sum does
+    /// not depend on it), from the centre's triangles; empty for grid vertices.</summary>
+    private static int[][] CentreRings(int[][] faces, int n, int gridCount)
+    {
+        var next = new Dictionary<int, int>[n];
+        foreach (var f in faces)
+            for (int k = 0; k < 3; k++)
+                if (f[k] >= gridCount) (next[f[k]] ??= [])[f[(k + 1) % 3]] = f[(k + 2) % 3];
+        var rings = new int[n][];
+        for (int v = 0; v < n; v++)
+        {
+            if (next[v] is not { } map) { rings[v] = []; continue; }
+            // A boundary centre's fan is open: start where no triangle leads in.
+            int start = map.Keys.FirstOrDefault(a => !map.ContainsValue(a), map.Keys.Min());
+            var ring = new List<int> { start };
+            while (map.TryGetValue(ring[^1], out int b) && b != start) ring.Add(b);
+            rings[v] = ring.ToArray();
+        }
+        return rings;
     }
 
     /// <summary>The flat crease pattern: 2D positions (x0 y0 x1 ...) from the sheet's corner and the

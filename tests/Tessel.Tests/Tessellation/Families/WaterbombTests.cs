@@ -79,7 +79,6 @@ public class WaterbombTests(ITestOutputHelper output)
         const int bases = 6, rows = 6;
         var g = WaterbombGenerator.Generate(plane, new WaterbombParameters(bases, rows, FoldDepth: 0.04));
         var m = g.Mesh;
-        int nx = 2 * bases + 1, gridCount = nx * (rows + 1);
         // Diagonals (centre to corner, not vertically aligned) are mountains, every grid line a valley:
         // Maekawa (Maekawa; Kasahara & Takahama 1987): |M - V| = 2 at every interior vertex.
         var flat = WaterbombGenerator.FlatLayout(bases, rows, 0.2, 0.2).Positions;
@@ -96,34 +95,35 @@ public class WaterbombTests(ITestOutputHelper output)
         var boundary = m.BoundaryVertices();
         for (int v = 0; v < m.VertexCount; v++) if (!boundary[v]) Assert.Equal(2, Math.Abs(mv[v]));
 
-        // Away from the untucked outer row lines the regular drape is developable and Kawasaki.
+        // The regular drape is developable and Kawasaki at every interior vertex of a plane.
         var stars = Tessel.Core.Fitting.Residuals.VertexStar.InteriorStars(m);
         var grad = new double[3 * 7];
-        int checkedStars = 0;
         foreach (var star in stars)
         {
-            bool nearEdge = star.Ring.Append(star.Center).Any(v => v < gridCount && (v / nx <= 0 || v / nx >= rows));
-            if (nearEdge) continue;
-            checkedStars++;
             Assert.InRange(Math.Abs(Tessel.Core.Fitting.Residuals.SectorAngleSums.Developability(m.Positions, star, grad)), 0, 1e-12);
             Assert.InRange(Math.Abs(Tessel.Core.Fitting.Residuals.SectorAngleSums.Kawasaki(m.Positions, star, grad)), 0, 1e-12);
         }
-        // Grid vertices whose stars stay inside row lines 1..5: 6 on line 1 (odd k), 5 on line 5 (even k),
-        // 11 on each of lines 2-4; centres of rows 1-4: 5 in odd rows (half bases excluded), 6 in even.
-        Assert.Equal(6 + 5 + 3 * 11 + 2 * 5 + 2 * 6, checkedStars);
+        // 11 x 5 interior grid vertices; 6 centres in each even row, 7 - 2 on the sheet's edge in each odd row.
+        Assert.Equal(11 * 5 + 3 * 6 + 3 * 5, stars.Length);
     }
 
     [Fact]
     public void FittedCapIsDevelopableAndKawasakiAtEpsilonZero()
     {
         var g = WaterbombGenerator.Generate(Cap, new WaterbombParameters(4, 4, FoldDepth: 0.05));
+        // The graded start (a tuck per base) is near developable on the sphere, where the plane's uniform
+        // tuck leaves 0.23 rad (measured: 0.019 rad graded); the fit finishes the grading.
+        double uniform = WaterbombGenerator.DevelopableTuck(0.25, 0.25, 0.05);
+        Assert.InRange(AngleDefects.MaxInterior(WaterbombGenerator.Generate(Cap, new WaterbombParameters(4, 4, FoldDepth: 0.05, Tuck: uniform)).Mesh), 0.1, 1);
+        Assert.InRange(AngleDefects.MaxInterior(g.Mesh), 1e-3, 0.03);
         var sw = System.Diagnostics.Stopwatch.StartNew();
         var r = MultiStartFitter.Fit(g, Cap, new FitSettings { Seed = 1, EpsilonDeg = 0 });
         output.WriteLine($"cap: {r.StopReason}, dev {r.Residuals.MaxDevelopability:E2}, kawasaki {r.Residuals.MaxKawasaki:E2}, rms {r.Shape.Rms:E3} m, max {r.Shape.Max:E3} m, {r.Solver.LinearSolves} solves, {sw.ElapsedMilliseconds} ms");
         Assert.True(r.Converged, r.StopReason);
         Assert.InRange(r.Residuals.MaxDevelopability, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxKawasaki, 0, 1e-9);
-        // Measured 3.7 mm RMS on a 1 m square of a 1.5 m sphere (sag 0.18 m), bases 0.25 m.
+        // Measured 3.1 mm RMS on a 1 m square of a 1.5 m sphere (sag 0.18 m), bases 0.25 m, in 87
+        // solves (5.9 mm and 98 from the uniform tuck).
         Assert.InRange(r.Shape.Rms, 0.001, 0.006);
         // Every crease kept its waterbomb sign, and the sheet unfolds without strain.
         for (int e = 0; e < r.Mesh.EdgeCount; e++)
@@ -143,8 +143,8 @@ public class WaterbombTests(ITestOutputHelper output)
         Assert.True(r.Converged, r.StopReason);
         Assert.InRange(r.Residuals.MaxDevelopability, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxKawasaki, 0, 1e-9);
-        // Measured 8.4 mm RMS on a 1 m radius vault, bases 0.25 m.
-        Assert.InRange(r.Shape.Rms, 0.002, 0.015);
+        // Measured 2.1 mm RMS on a 1 m radius vault, bases 0.25 m (9.0 mm from the uniform tuck).
+        Assert.InRange(r.Shape.Rms, 0.0005, 0.005);
     }
 
     [Fact]
