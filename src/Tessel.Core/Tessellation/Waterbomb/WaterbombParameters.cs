@@ -10,7 +10,7 @@ namespace Tessel.Core.Tessellation.Waterbomb;
 /// <param name="Tuck">How far, as a fraction of the row height, the starting drape pulls each midline
 /// end toward its base centre in plan; it gives the midline creases their valley sign (see
 /// <see cref="WaterbombGenerator"/>). Null: the tuck that makes the regular drape on a plane
-/// developable (<see cref="WaterbombGenerator.DevelopableTuck"/>).</param>
+/// developable (<see cref="WaterbombGenerator.DevelopableTuck"/>), graded per base on a curved target.</param>
 public sealed record WaterbombParameters(
     int? Bases = null,
     int? Rows = null,

@@ -159,8 +159,11 @@ public class WaterbombTests(ITestOutputHelper output)
         // Deeper than the base: the bases would start folded shut.
         ex = Assert.Throws<ArgumentException>(() => WaterbombGenerator.Generate(Cap, new WaterbombParameters(4, 4, FoldDepth: 0.3)));
         Assert.Equal("FoldDepth", ex.ParamName);
-        ex = Assert.Throws<ArgumentException>(() => WaterbombGenerator.Generate(Cap, new WaterbombParameters(4, 4, Tuck: 0.6)));
-        Assert.Equal("Tuck", ex.ParamName);
+        foreach (double tuck in new[] { 0, 0.6 })
+        {
+            ex = Assert.Throws<ArgumentException>(() => WaterbombGenerator.Generate(Cap, new WaterbombParameters(4, 4, Tuck: tuck)));
+            Assert.Equal("Tuck", ex.ParamName);
+        }
         ex = Assert.Throws<ArgumentException>(() => WaterbombGenerator.Generate(Cap, new WaterbombParameters()));
         Assert.Contains("CellSize", ex.Message);
     }
