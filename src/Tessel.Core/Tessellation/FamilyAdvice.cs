@@ -45,7 +45,7 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
                 if (!dome && !saddle) return new(family, true, $"Any shape works ({k}); for a single-curved target a Yoshimura or Miura pattern gives a tidier, regular fold layout.", curved ? "yoshimura" : "miura");
                 return new(family, true, $"Any shape works ({k}); expect shape error to grow with |K| times the cell area.", null);
             case "waterbomb":
-                if (saddle) return new(family, false, $"The target has saddle regions ({k}): waterbomb bases grade into domes and tubes (K >= 0), not saddles.", dome ? "free-triangulated" : "miura");
+                if (saddle) return new(family, false, $"The target has saddle regions ({k}): waterbomb bases suit domes and tubes (K >= 0); on a saddle expect a larger shape error.", dome ? "free-triangulated" : "miura");
                 if (dome) return new(family, true, $"The target is dome-like ({k}): the fit grades the waterbomb bases to follow it.", null);
                 if (curved) return new(family, true, $"The target is single-curved ({k}): uniform waterbomb bases roll into a tube or vault.", null);
                 return new(family, true, $"The target is flat ({k}): a waterbomb sheet fits it, though it tends to roll; a Miura sheet stays flat more readily.", null);
