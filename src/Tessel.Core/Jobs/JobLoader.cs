@@ -297,6 +297,8 @@ public static partial class JobLoader
     private static double VerticesPerCell(string family, double cx, double cy) => family switch
     {
         "free-triangulated" => (cx + 1) * (cy + 1),
+        // Grid-line vertices plus one centre per base (odd rows end in two half bases).
+        "waterbomb" => (2 * cx + 1) * (cy + 1) + cx * cy + Math.Floor(cy / 2),
         _ => (2 * cx + 1) * (2 * cy + 1),
     };
 

@@ -56,8 +56,8 @@ public static class TessellationStage
 
     private static string FieldOf(string? parameter) => parameter switch
     {
-        "CellsX" => "cellsX",
-        "CellsY" => "cellsY",
+        "CellsX" or "Bases" => "cellsX",
+        "CellsY" or "Rows" => "cellsY",
         "CellSize" => "cellSize",
         "SectorAngleDeg" => "sectorAngleDeg",
         "FoldDepth" => "foldDepth",

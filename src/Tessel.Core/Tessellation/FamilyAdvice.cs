@@ -17,7 +17,7 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
         "miura" => "miura: saddles and anticlastic canopies (K < 0), waves and gentle single curvature; parameters: cells or cell size, sector angle, fold depth, orientation.",
         "reverse-curvature" => "reverse-curvature: intended for domes and synclastic shells (K > 0) as a graded Miura-type sheet; parameters as miura plus grading. In this build its dome envelope was not yet synclastic at every vertex: check the envelope defects.",
         "yoshimura" => "yoshimura: barrel vaults and cylinders (one direction curved, K = 0), folded in closed form; parameters: rings along the axis, triangles across the arc, or cell size.",
-        "waterbomb" => "waterbomb: tubes and, graded, domes; not available in this build.",
+        "waterbomb" => "waterbomb: domes and tubes (K >= 0): uniform bases roll into a tube, the fit grades them into a dome; parameters: bases per row and rows (cells), or cell size, fold depth.",
         "free-triangulated" => "free-triangulated: any shape, domes and saddles included, at the cost of an irregular fold layout; parameters: cells or cell size, flat-diagonal share.",
         _ => throw new ArgumentException($"unknown family '{family}'", nameof(family)),
     };
@@ -32,20 +32,23 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
         switch (family)
         {
             case "miura":
-                if (dome) return new(family, false, $"The target is dome-like ({k}): a uniform Miura sheet bends into a saddle (K < 0), the opposite sign, so the fit will leave large shape error.", "free-triangulated");
+                if (dome) return new(family, false, $"The target is dome-like ({k}): a uniform Miura sheet bends into a saddle (K < 0), the opposite sign, so the fit will leave large shape error.", saddle ? "free-triangulated" : "waterbomb");
                 return new(family, true, $"The target is saddle-like or single-curved ({k}): Miura sheets bend this way naturally.", null);
             case "reverse-curvature":
                 if (saddle && !dome) return new(family, false, $"The target is saddle-like ({k}): a reverse-curvature sheet is made for K > 0; a plain Miura sheet bends to K < 0 by itself.", "miura");
                 if (!dome) return new(family, false, $"The target is single-curved or flat ({k}): no grading is needed.", curved ? "yoshimura" : "miura");
                 return new(family, true, $"The target is dome-like ({k}), the case this family is meant for; check its envelope defects after the fit.", null);
             case "yoshimura":
-                if (dome || saddle) return new(family, false, $"The target is doubly curved ({k}): a Yoshimura pattern folds to a cylinder (K = 0) and cannot follow it.", dome ? "free-triangulated" : "miura");
+                if (dome || saddle) return new(family, false, $"The target is doubly curved ({k}): a Yoshimura pattern folds to a cylinder (K = 0) and cannot follow it.", dome ? (saddle ? "free-triangulated" : "waterbomb") : "miura");
                 return new(family, true, $"The target is single-curved ({k}): a Yoshimura vault fits it, in closed form on a circular cylinder.", null);
             case "free-triangulated":
                 if (!dome && !saddle) return new(family, true, $"Any shape works ({k}); for a single-curved target a Yoshimura or Miura pattern gives a tidier, regular fold layout.", curved ? "yoshimura" : "miura");
                 return new(family, true, $"Any shape works ({k}); expect shape error to grow with |K| times the cell area.", null);
             case "waterbomb":
-                return new(family, false, "The waterbomb family is not available in this build.", dome ? "free-triangulated" : curved ? "yoshimura" : "miura");
+                if (saddle) return new(family, false, $"The target has saddle regions ({k}): waterbomb bases suit domes and tubes (K >= 0); on a saddle expect a larger shape error.", dome ? "free-triangulated" : "miura");
+                if (dome) return new(family, true, $"The target is dome-like ({k}): the fit grades the waterbomb bases to follow it.", null);
+                if (curved) return new(family, true, $"The target is single-curved ({k}): uniform waterbomb bases roll into a tube or vault.", null);
+                return new(family, true, $"The target is flat ({k}): a waterbomb sheet fits it, though it tends to roll; a Miura sheet stays flat more readily.", null);
             default:
                 throw new ArgumentException($"unknown family '{family}'", nameof(family));
         }

@@ -2,6 +2,7 @@ using Tessel.Core.Targets;
 using Tessel.Core.Tessellation.FreeTriangulated;
 using Tessel.Core.Tessellation.Miura;
 using Tessel.Core.Tessellation.ReverseCurvature;
+using Tessel.Core.Tessellation.Waterbomb;
 using Tessel.Core.Tessellation.Yoshimura;
 
 namespace Tessel.Core.Tessellation;
@@ -11,7 +12,7 @@ namespace Tessel.Core.Tessellation;
 public static class FamilyGenerators
 {
     /// <summary>Family names this build can generate, in the order the documentation lists them.</summary>
-    public static readonly string[] Names = ["miura", "reverse-curvature", "yoshimura", "free-triangulated"];
+    public static readonly string[] Names = ["miura", "reverse-curvature", "yoshimura", "waterbomb", "free-triangulated"];
 
     /// <summary>Builds the named family on the target. Throws <see cref="ArgumentException"/> for an unknown
     /// family (naming the known ones) and for parameters the family cannot use.</summary>
@@ -22,7 +23,7 @@ public static class FamilyGenerators
             "reverse-curvature" => ReverseCurvatureGenerator.Generate(target, new ReverseCurvatureParameters(Miura(p), p.Grading)),
             "yoshimura" => YoshimuraGenerator.Generate(target, new YoshimuraParameters(p.CellsY, p.CellsX, p.CellSize)),
             "free-triangulated" => FreeTriangulatedGenerator.Generate(target, new FreeTriangulatedParameters(p.CellsX, p.CellsY, p.CellSize, p.FlatDiagonalShare)),
-            "waterbomb" => throw new ArgumentException("the waterbomb family is not available in this build; use free-triangulated for domes or yoshimura for tubes and vaults", nameof(family)),
+            "waterbomb" => WaterbombGenerator.Generate(target, new WaterbombParameters(p.CellsX, p.CellsY, p.CellSize, p.FoldDepth)),
             _ => throw new ArgumentException($"unknown family '{family}'; known families: {string.Join(", ", Names)}", nameof(family)),
         };
 

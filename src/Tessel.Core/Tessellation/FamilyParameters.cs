@@ -2,11 +2,11 @@ namespace Tessel.Core.Tessellation;
 
 /// <summary>The parameters every family generator draws from; each family reads the ones it uses.</summary>
 /// <param name="CellsX">Cells along x (Miura-type: zig-zag cells; Yoshimura: rings along the vault axis;
-/// free net: grid cells), or null to derive from <paramref name="CellSize"/>.</param>
-/// <param name="CellsY">Cells along y (Yoshimura: triangle bases across the arc), or null.</param>
+/// free net: grid cells; waterbomb: bases per row), or null to derive from <paramref name="CellSize"/>.</param>
+/// <param name="CellsY">Cells along y (Yoshimura: triangle bases across the arc; waterbomb: rows), or null.</param>
 /// <param name="CellSize">Plan size of one cell in metres, used where a count is null.</param>
 /// <param name="SectorAngleDeg">Miura-type: acute facet angle, degrees in (0, 90).</param>
-/// <param name="FoldDepth">Miura-type: distance between the two vertex layers, metres.</param>
+/// <param name="FoldDepth">Miura-type and waterbomb: distance between the two vertex layers, metres.</param>
 /// <param name="OrientationDeg">Miura-type: direction of the zig-zag on the footprint, degrees.</param>
 /// <param name="FlatDiagonalShare">Free net: share of grid cells kept as planar quad panels, [0, 1].</param>
 /// <param name="Grading">Reverse-curvature: relative growth of the zig-zag from centre to corner.</param>
