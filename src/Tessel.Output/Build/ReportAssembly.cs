@@ -29,7 +29,7 @@ public static class ReportAssembly
             new("Developability residual", $"{f.Residuals.MaxDevelopability.ToString("0.##E+0", Inv)} rad (epsilon {f.EpsilonDeg.ToString("0.###", Inv)} deg)"),
             new("Kawasaki residual", $"{f.Residuals.MaxKawasaki.ToString("0.##E+0", Inv)} rad"),
             new("Planarity residual", f.Residuals.MaxPlanarity.ToString("0.##E+0", Inv)),
-            new("Degrees of freedom", $"{checks.Rigidity.DegreesOfFreedom} (rank gap {checks.Rigidity.GapRatio.ToString("0.##E+0", Inv)})"),
+            new("Degrees of freedom", $"{checks.Rigidity.DegreesOfFreedom} (rank gap {(double.IsFinite(checks.Rigidity.GapRatio) ? checks.Rigidity.GapRatio.ToString("0.##E+0", Inv) : "unbounded: the dropped singular values are exactly 0")})"),
             new("Folding path", $"{(checks.Path.ReachedNearFlat ? "reaches near-flat" : "does not reach near-flat")}, drift {checks.Path.MaxBarStrain.ToString("0.##E+0", Inv)}"),
             new("Panel collisions", checks.CollisionCount.ToString(Inv)),
             new("Flat-layout strain", $"{(checks.Strain.MaxStrain * 100).ToString("0.####", Inv)} % (limit {(checks.Strain.StrainLimit * 100).ToString("0.##", Inv)} %)"),
