@@ -34,26 +34,33 @@ public static class ReverseCurvatureGenerator
         var (cell, cellsX, cellsY) = MiuraGenerator.ResolveCell(target.Footprint, p.Miura);
         int nx = 2 * cellsX + 1, ny = 2 * cellsY + 1;
         var mesh = uniform.Mesh;
-        var pos = (double[])mesh.Positions.Clone();
+        var plans = MiuraGenerator.PlanPoints(target.Footprint, p.Miura);
+        var pos = new double[mesh.Positions.Length];
         double phi = p.Miura.OrientationDeg * Math.PI / 180;
-        // Zig-zag direction (sheet y axis) in plan, and the sheet's half extents in cell units.
+        // Zig-zag direction (sheet y axis) in plan.
         var across = new Vec2(0, 1).Rotated(phi);
-        double hx = cellsX, hy = cellsY;
         for (int j = 0; j < ny; j++)
-            for (int i = 1; i < nx; i += 2)
+            for (int i = 0; i < nx; i++)
             {
-                // Odd columns carry the zig-zag offset V: move them by (grade - 1) V across the zig-zag.
-                double rx = (i - cellsX) / hx, ry = (j - cellsY) / hy;
-                double r2 = 0.5 * (rx * rx + ry * ry);
-                double shift = p.Grading * r2 * cell.V;
                 int k = j * nx + i;
-                var q = Vec3.Read(pos, k);
-                double x = q.X + shift * across.X, y = q.Y + shift * across.Y;
-                double z = target.HeightAt(x, y);
+                var plan = plans[k];
+                if (i % 2 == 1)
+                {
+                    // Odd columns carry the zig-zag offset V: move them by Grading r^2 V across the zig-zag.
+                    double rx = (i - cellsX) / (double)cellsX, ry = (j - cellsY) / (double)cellsY;
+                    plan += p.Grading * 0.5 * (rx * rx + ry * ry) * cell.V * across;
+                }
+                double z = target.HeightAt(plan.X, plan.Y);
                 if (!double.IsFinite(z))
-                    throw new ArgumentException($"the graded sheet reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller Grading or footprint", nameof(p.Grading));
-                var onTarget = new Vec3(x, y, z);
-                (mesh.Layers[k] == VertexLayer.Top ? onTarget : onTarget - uniform.LayerOffset * target.NormalAt(x, y)).Write(pos, k);
+                {
+                    if (i % 2 == 1 && p.Grading != 0)
+                        throw new ArgumentException($"the graded sheet reaches ({plan.X:0.###}, {plan.Y:0.###}) m where the target has no surface; use a smaller Grading or footprint", nameof(p.Grading));
+                    // Where the plain drape had to clamp (zig-zag overhang of a footprint-only target), keep it.
+                    Vec3.Read(mesh.Positions, k).Write(pos, k);
+                    continue;
+                }
+                var onTarget = new Vec3(plan.X, plan.Y, z);
+                (mesh.Layers[k] == VertexLayer.Top ? onTarget : onTarget - uniform.LayerOffset * target.NormalAt(plan.X, plan.Y)).Write(pos, k);
             }
         var graded = new CreaseMesh("reverse-curvature", pos, mesh.Faces, mesh.Layers, RoleLookup(mesh));
         return uniform with { Mesh = graded, InitialPenalty = InitialPenalty };

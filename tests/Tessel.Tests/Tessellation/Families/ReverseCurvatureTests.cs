@@ -25,6 +25,13 @@ public class ReverseCurvatureTests
         Assert.Equal(VertexLayer.Top, graded.Mesh.Layers[10]);
         Assert.Equal(0.5 * 0.5625 * cell.V, b.Y - a.Y, 9);
         Assert.Equal(a.X, b.X, 12);
+        // Grading 0 is the plain Miura drape (each layer placed once from its plan point).
+        var miura = MiuraGenerator.Generate(Dome, Sheet);
+        for (int k = 0; k < miura.Mesh.Positions.Length; k++) Assert.Equal(miura.Mesh.Positions[k], uniform.Mesh.Positions[k], 12);
+        // Bottom zig-zag vertex (i = 1, j = 0) sits a fold depth below the cap along its normal.
+        var bottom = graded.Mesh.Vertex(1);
+        var onCap = Dome.ClosestPoint(bottom);
+        Assert.Equal(-Sheet.FoldDepth, onCap.SignedDistance, 9);
         var ex = Assert.Throws<ArgumentException>(() => ReverseCurvatureGenerator.Generate(Dome, new ReverseCurvatureParameters(Sheet, 5)));
         Assert.Equal("Grading", ex.ParamName);
     }
@@ -42,8 +49,8 @@ public class ReverseCurvatureTests
     }
 
     [Theory]
-    // cells, fold depth (m), largest shape RMS (m): measured 0.79 mm and 0.19 mm (Debug, 68 and 89
-    // solves); the bounds leave about 2.5x room.
+    // cells, fold depth (m), largest shape RMS (m): measured 0.78 mm and 0.19 mm (67 and 89 solves);
+    // the bounds leave about 2.5x room (seeds 2-4 gave 0.24-1.6 mm and 0.07-0.32 mm).
     [InlineData(4, 0.06, 0.002)]
     [InlineData(8, 0.03, 0.0005)]
     public void FitOnTheDomeIsSynclasticDevelopableFlatFoldableAndPlanar(int cells, double depth, double maxRms)
@@ -62,8 +69,9 @@ public class ReverseCurvatureTests
         Assert.InRange(r.Shape.Rms, 0, maxRms);
         // Acceptance (geometry.md section 3): the envelope through the top vertices is synclastic, i.e.
         // its angle defect (discrete Gaussian curvature) is positive at every interior vertex. Measured
-        // 0.0018 .. 0.0047 rad at 4 x 4 and 0.00063 .. 0.0017 rad at 8 x 8 (the target's K A: 0.0039
-        // and 0.00098 rad); with the fitter's default penalty the 4 x 4 fit gave -0.0009 .. +0.0021.
+        // 0.0018 .. 0.0048 rad at 4 x 4 and 0.00063 .. 0.0017 rad at 8 x 8 (the target's K A: 0.0039
+        // and 0.00098 rad; seeds 2-4 kept every defect positive too, the smallest 0.0001 rad); with the
+        // fitter's default penalty the 4 x 4 fit gave -0.0009 .. +0.0021.
         var envelope = ReverseCurvatureGenerator.TopEnvelope(r.Mesh, cells, cells);
         var defects = AngleDefects.PerVertex(envelope);
         var boundary = envelope.BoundaryVertices();
@@ -73,7 +81,7 @@ public class ReverseCurvatureTests
         {
             if (boundary[v]) continue;
             interior++;
-            Assert.True(defects[v] > 0.25 * kA, $"envelope vertex {v}: defect {defects[v]} rad, target K A {kA}");
+            Assert.True(defects[v] > 0, $"envelope vertex {v}: defect {defects[v]} rad, target K A {kA}");
             Assert.True(defects[v] < 2.5 * kA, $"envelope vertex {v}: defect {defects[v]} rad, target K A {kA}");
         }
         Assert.Equal((cells - 2) * (cells - 1), interior);
