@@ -19,6 +19,12 @@ namespace Tessel.Core.Tessellation.ReverseCurvature;
 /// (-0.0009 .. +0.0021 rad), the zig-zag ends 20 mm above the cap; with a starting penalty of 100 the
 /// same fit reaches 0.8 mm RMS and positive defects everywhere, and 8 x 8 reaches 0.2 mm. The start's
 /// grading matters little (grading 0, 0.3 and 1 end within 3 % of one another): the fit grades the cells.
+/// Steep domes remain fragile: on a 14 m square of an R = 20 m cap (30 deg slope at the corners) the
+/// plan drape starts with Kawasaki residuals of 0.25-0.3 rad, phase 1 wanders 0.3-1 m off the target,
+/// and only about a third of the (cells 8-12, sector angle 60/65 deg, fold depth 0.3-0.5 m) choices
+/// converge, which ones depending on the start; shallow folds (depth under about 0.4 of the cell's
+/// half-length) failed most. Draping by arc length from the centre cut the start's Kawasaki residual
+/// threefold but converged no more often; a flat, exactly feasible start converged but stayed flat.
 /// </remarks>
 public static class ReverseCurvatureGenerator
 {
