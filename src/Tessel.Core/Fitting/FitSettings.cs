@@ -1,3 +1,5 @@
+using Tessel.Core.Tessellation;
+
 namespace Tessel.Core.Fitting;
 
 /// <summary>Settings of the epsilon-constraint fit. Angles in degrees; defaults suit architectural
@@ -33,4 +35,9 @@ public sealed record FitSettings
     public double StartPerturbation { get; init; } = 0.02;
     /// <summary>Initial augmented-Lagrangian penalty (dimensionless: constraints are in radians).</summary>
     public double InitialPenalty { get; init; } = 1e6;
+
+    /// <summary>These settings with the pattern's own <see cref="GeneratedPattern.InitialPenalty"/>
+    /// when its family sets one.</summary>
+    public FitSettings For(GeneratedPattern pattern) =>
+        pattern.InitialPenalty is double penalty ? this with { InitialPenalty = penalty } : this;
 }

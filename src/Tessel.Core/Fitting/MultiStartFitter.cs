@@ -8,13 +8,15 @@ namespace Tessel.Core.Fitting;
 /// <summary>Runs <see cref="FitSettings.Starts"/> fits in parallel from seeded perturbations of the
 /// interior vertices along the target normal and keeps the best. Deterministic: start k draws from a
 /// generator seeded by (Seed, k) alone, each start owns all its state, and the winner is the lowest
-/// objective among converged starts (then among all), ties broken by the lower start index.</summary>
+/// objective among converged starts (then among all), ties broken by the lower start index. A pattern's
+/// own <see cref="GeneratedPattern.InitialPenalty"/> replaces the settings' one.</summary>
 public static class MultiStartFitter
 {
     /// <param name="solverFactory">Makes one SPD solver per start; default <see cref="EpsilonConstraintFitter.DefaultSolver"/>.</param>
     public static FitResult Fit(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
         Func<ISpdSolver>? solverFactory = null)
     {
+        settings = settings.For(pattern);
         int starts = Math.Max(1, settings.Starts);
         var rows = new FitRows(pattern, target, pattern.LayerOffset, settings);
         var results = new FitResult[starts];

@@ -12,7 +12,8 @@ public sealed record ParetoPoint(double EpsilonDeg, double ShapeRms, double Shap
     double MaxDevelopability, double MaxKawasaki, double MaxPlanarity, bool Converged);
 
 /// <summary>Sweep mode of the epsilon-constraint method (Haimes, Lasdon &amp; Wismer 1971): fits for a
-/// list of epsilon values, each warm-started from the previous result, giving the Pareto front as data.</summary>
+/// list of epsilon values, each warm-started from the previous result, giving the Pareto front as data.
+/// A pattern's own <see cref="GeneratedPattern.InitialPenalty"/> replaces the settings' one.</summary>
 public static class ParetoSweep
 {
     /// <summary>Fits at each epsilon in the given order (sort them so neighbours are close) and
@@ -24,7 +25,7 @@ public static class ParetoSweep
         double[]? start = null;
         foreach (double eps in epsilonsDeg)
         {
-            var s = settings with { EpsilonDeg = eps };
+            var s = settings.For(pattern) with { EpsilonDeg = eps };
             var r = EpsilonConstraintFitter.Fit(pattern, target, s, solver, start);
             start = r.Mesh.Positions;
             fits.Add(r);

@@ -15,7 +15,7 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
     public static string Describe(string family) => family switch
     {
         "miura" => "miura: saddles and anticlastic canopies (K < 0), waves and gentle single curvature; parameters: cells or cell size, sector angle, fold depth, orientation.",
-        "reverse-curvature" => "reverse-curvature: intended for domes and synclastic shells (K > 0) as a graded Miura-type sheet; parameters as miura plus grading. In this build its dome envelope was not yet synclastic at every vertex: check the envelope defects.",
+        "reverse-curvature" => "reverse-curvature: domes and synclastic shells (K > 0) as a Miura-type sheet whose cells the fit grades; parameters as miura plus grading. On steep domes the fit can fail to converge: then try another fold depth (about half a cell's half-length) or more cells.",
         "yoshimura" => "yoshimura: barrel vaults and cylinders (one direction curved, K = 0), folded in closed form; parameters: rings along the axis, triangles across the arc, or cell size.",
         "waterbomb" => "waterbomb: domes and tubes (K >= 0): uniform bases roll into a tube, the fit grades them into a dome; parameters: bases per row and rows (cells), or cell size, fold depth.",
         "free-triangulated" => "free-triangulated: any shape, domes and saddles included, at the cost of an irregular fold layout; parameters: cells or cell size, flat-diagonal share.",

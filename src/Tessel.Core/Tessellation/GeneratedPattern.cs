@@ -15,7 +15,16 @@ public sealed record GeneratedPattern(
     FamilyConstraints Constraints,
     int[] FairnessStencils,
     int AnchorVertex,
-    double LayerOffset);
+    double LayerOffset)
+{
+    /// <summary>Starting augmented-Lagrangian penalty this family needs, or null for the fit settings'
+    /// value. The multi-start fit and the epsilon sweep use it in place of the settings' value (the
+    /// single-start fit takes its settings as given).</summary>
+    /// <remarks>A family whose constraint-feasible start lies far from its best fit (a Miura-type sheet
+    /// on a dome) must travel along the constraint set in phase 2; a stiff penalty turns every step
+    /// there into a creep, and the fit stops where phase 1 landed.</remarks>
+    public double? InitialPenalty { get; init; }
+}
 
 /// <summary>Constraint kinds a family asks the fitter to enforce.</summary>
 [Flags]

@@ -7,12 +7,14 @@ namespace Tessel.Core.Tessellation.FreeTriangulated;
 /// <param name="CellSize">Plan size of one grid cell in metres, used where a count is null.</param>
 /// <param name="FlatDiagonalShare">Share of the grid cells, in [0, 1], kept as planar quad panels (their
 /// diagonal a flat crease, held planar by the fit) instead of two triangles folded along the diagonal.
-/// Measured in this build: 6 x 6 nets with shares 0.15 and 0.3 on a cap and a saddle did not reach the
-/// constraints within 300 steps (developability 0.002-0.024 rad, planarity 5e-5-0.015 left), while the
-/// all-triangle net converges; treat shares above 0 as experimental and check the fit's residuals.</param>
+/// A net with panels starts corrugated (see <see cref="FreeTriangulatedGenerator"/>); measured: 6 x 6 on a
+/// cap converges for shares 0.5 and 1 (DOF 21, 3 and 0 for shares 0, 0.5 and 1), 8 x 8 for share 0.5
+/// and 10 x 10 for share 1, but 8 x 8 at share 1 needs about 650 steps. On a saddle panelled nets did
+/// not converge within 300 steps (a deeper corrugation, 3 x Crumple, suits the saddle but fails on the
+/// cap); check the fit's residuals.</param>
 /// <param name="Crumple">Standard deviation of the start's deterministic out-of-surface offsets of interior
-/// vertices, as a fraction of the cell size (see <see cref="FreeTriangulatedGenerator"/>); 0 starts on
-/// the target itself.</param>
+/// vertices, as a fraction of the cell size (see <see cref="FreeTriangulatedGenerator"/>); with quad panels
+/// half the row offset of the corrugated start instead; 0 starts on the target itself.</param>
 public sealed record FreeTriangulatedParameters(
     int? CellsX = null,
     int? CellsY = null,

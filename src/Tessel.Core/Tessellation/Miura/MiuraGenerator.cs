@@ -18,18 +18,12 @@ public static class MiuraGenerator
         int nx = 2 * cellsX + 1, ny = 2 * cellsY + 1;
 
         var fp = target.Footprint;
-        double phi = p.OrientationDeg * Math.PI / 180;
-        var centre = new Vec2(0.5 * (fp.MinX + fp.MaxX), 0.5 * (fp.MinY + fp.MaxY));
-        var (u0, u1, v0, v1) = RotatedBounds(fp, centre, phi);
-        // Centre the sheet (zig-zag included) on the footprint's bounding box in the rotated frame.
-        var mid = new Vec2(0.5 * (u0 + u1) - cellsX * cell.S, 0.5 * (v0 + v1) - cellsY * cell.L - 0.5 * cell.V);
-
+        var plans = PlanPoints(fp, p);
         var pos = new double[flat.Positions.Length];
         double d = p.FoldDepth;
         for (int k = 0; k < flat.VertexCount; k++)
         {
-            var local = flat.Vertex(k);
-            var plan = centre + (mid + new Vec2(local.X, local.Y)).Rotated(phi);
+            var plan = plans[k];
             // The zig-zag overhangs the footprint by up to V; a target defined only over its footprint
             // (a mesh, a height map) is sampled at the nearest footprint point instead, which only
             // moves the starting drape.
@@ -45,6 +39,25 @@ public static class MiuraGenerator
         }
         var mesh = flat.WithPositions(pos);
         return new GeneratedPattern(mesh, FamilyConstraints.All, FairnessStencils(nx, ny), AnchorVertex(nx, cellsX, cellsY), d);
+    }
+
+    /// <summary>Plan position of every vertex of the regular sheet (<see cref="RegularMiuraSheet"/> order),
+    /// turned to the orientation and centred, zig-zag included, on the footprint's bounding box.</summary>
+    public static Vec2[] PlanPoints(Footprint fp, MiuraParameters p)
+    {
+        var (cell, cellsX, cellsY) = ResolveCell(fp, p);
+        var flat = RegularMiuraSheet.Build(cell, cellsX, cellsY);
+        double phi = p.OrientationDeg * Math.PI / 180;
+        var centre = new Vec2(0.5 * (fp.MinX + fp.MaxX), 0.5 * (fp.MinY + fp.MaxY));
+        var (u0, u1, v0, v1) = RotatedBounds(fp, centre, phi);
+        var mid = new Vec2(0.5 * (u0 + u1) - cellsX * cell.S, 0.5 * (v0 + v1) - cellsY * cell.L - 0.5 * cell.V);
+        var plans = new Vec2[flat.VertexCount];
+        for (int k = 0; k < plans.Length; k++)
+        {
+            var local = flat.Vertex(k);
+            plans[k] = centre + (mid + new Vec2(local.X, local.Y)).Rotated(phi);
+        }
+        return plans;
     }
 
     /// <summary>The regular cell whose plan size makes cellsX x cellsY cells span the footprint, with
