@@ -131,14 +131,11 @@ internal sealed class FitRun
         double damping = phase == Optimality ? _damping : initialDamping;
         int used = 0, rejectedInRow = 0;
         int n = _system.Unknowns;
-        var rhs = new double[n];
-        var step = new double[n];
-        var correction = new double[n];
-        var trial = new double[_x.Length];
-        var corrected = new double[_x.Length];
-        var savedValue = new double[_rows.RowCount];
-        var savedGrad = new double[_grad.Length];
-        var savedWeight = new double[_rows.RowCount];
+        // Scratch owned by the run: large sheets would otherwise allocate (and collect) hundreds of MB per step.
+        var s = _scratch ??= new Scratch(n, _x.Length, _rows.RowCount, _grad.Length);
+        double[] rhs = s.Rhs, step = s.Step, correction = s.Correction, soc = s.Soc;
+        double[] trial = s.Trial, corrected = s.Corrected;
+        double[] savedValue = s.SavedValue, savedGrad = s.SavedGrad, savedWeight = s.SavedWeight;
         Evaluate(_x);
         double merit = Merit(phase);
         if (done()) return;
@@ -151,7 +148,8 @@ internal sealed class FitRun
                 Merit(phase);
                 _system.Assemble(_weight, _residual, _grad, rhs);
                 if (phase == Optimality) AddConstraintCurvature();
-                undamped = (double[])_system.Matrix.Values.Clone();
+                undamped = s.Undamped ??= new double[_system.Matrix.Values.Length];
+                Array.Copy(_system.Matrix.Values, undamped, undamped.Length);
                 assembled = true;
             }
             else Array.Copy(undamped!, _system.Matrix.Values, undamped!.Length);
@@ -172,7 +170,7 @@ internal sealed class FitRun
                 trialMerit = Merit(phase);
                 // Second-order correction: the constraints' change along the step beyond their linear
                 // prediction, removed with the same factor (the remedy for the Maratos effect of a penalty merit).
-                var soc = new double[n];
+                Array.Clear(soc);
                 bool any = false;
                 for (int r = _rows.FirstConstraint; r < _rows.RowCount; r++)
                 {
@@ -191,11 +189,11 @@ internal sealed class FitRun
                     if (again.Converged && AllFinite(correction))
                     {
                         _system.Apply(trial, correction, corrected);
-                        var trialValue = (double[])_value.Clone(); var trialGrad = (double[])_grad.Clone();
+                        _value.AsSpan().CopyTo(s.TrialValue); _grad.AsSpan().CopyTo(s.TrialGrad);
                         Evaluate(corrected);
                         double correctedMerit = Merit(phase);
-                        if (correctedMerit < trialMerit) { (trial, corrected) = (corrected, trial); trialMerit = correctedMerit; }
-                        else { trialValue.CopyTo(_value, 0); trialGrad.CopyTo(_grad, 0); Merit(phase); }
+                        if (correctedMerit < trialMerit) { (trial, corrected) = (corrected, trial); (s.Trial, s.Corrected) = (trial, corrected); trialMerit = correctedMerit; }
+                        else { s.TrialValue.AsSpan().CopyTo(_value); s.TrialGrad.AsSpan().CopyTo(_grad); Merit(phase); }
                     }
                 }
             }
@@ -203,6 +201,7 @@ internal sealed class FitRun
             if (accept)
             {
                 (_x, trial) = (trial, _x);
+                s.Trial = trial;
                 double decrease = (merit - trialMerit) / Math.Max(merit, 1e-300);
                 merit = trialMerit;
                 damping = Math.Max(damping / 3, 1e-12);
@@ -256,6 +255,17 @@ internal sealed class FitRun
     }
 
     private double[] _hessian = [], _g0 = [], _g1 = [];
+    private Scratch? _scratch;
+
+    /// <summary>Work arrays of the steps, allocated once per run.</summary>
+    private sealed class Scratch(int unknowns, int coordinates, int rows, int gradients)
+    {
+        public readonly double[] Rhs = new double[unknowns], Step = new double[unknowns], Correction = new double[unknowns], Soc = new double[unknowns];
+        public double[] Trial = new double[coordinates], Corrected = new double[coordinates];
+        public readonly double[] SavedValue = new double[rows], SavedWeight = new double[rows], TrialValue = new double[rows];
+        public readonly double[] SavedGrad = new double[gradients], TrialGrad = new double[gradients];
+        public double[]? Undamped;
+    }
 
     private static bool AllFinite(double[] v)
     {
