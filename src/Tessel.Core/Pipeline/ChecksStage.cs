@@ -16,7 +16,8 @@ public sealed record ChecksStageResult(
     IReadOnlyList<FoldAngleRow> FoldAngles,
     FlatStrainResult Strain,
     int ShortEdgeCount,
-    double ShortestEdgeMm)
+    double ShortestEdgeMm,
+    EnvelopeCurvature? Envelope = null)
 {
     /// <summary>Panel pairs that collide at the fitted state or at any kept state of the path.</summary>
     public int CollisionCount => FittedCollisions.Count + PathCollisions.Sum(f => f.Collisions.Count);
@@ -26,7 +27,9 @@ public sealed record ChecksStageResult(
 /// degrees of freedom, rigid folding path, collisions, fold-angle table and flat-layout strain.</summary>
 public static class ChecksStage
 {
-    public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress)
+    /// <param name="envelope">The family's envelope builder (<see cref="GeneratedPattern.Envelope"/>), or null.</param>
+    public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress,
+        Func<CreaseMesh, CreaseMesh>? envelope = null)
     {
         progress.Stage("unfold", "developing the fitted pattern to the plane");
         var flat = MeshUnfolder.Unfold(fitted, new AutoSolver());
@@ -58,6 +61,28 @@ public static class ChecksStage
             if (mm < minMm) shortCount++;
         }
         progress.Step($"collisions {fittedCollisions.Count + pathCollisions.Sum(f => f.Collisions.Count)}, max flat strain {strain.MaxStrain * 100:0.####} % (limit {strainLimit * 100:0.##} %)");
-        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest);
+        EnvelopeCurvature? curvature = null;
+        if (envelope is not null)
+        {
+            curvature = EnvelopeCurvature.Of(envelope(fitted));
+            if (curvature is not null)
+                progress.Step($"envelope angle defects {curvature.MinDefect:0.###E+0} to {curvature.MaxDefect:0.###E+0} rad, positive at {curvature.Positive} of {curvature.Interior}");
+        }
+        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest, curvature);
     }
+}
+
+/// <summary>Discrete Gaussian curvature of a pattern's envelope: its angle defects at interior envelope
+/// vertices (Gauss-Bonnet, geometry.md section 6). Positive everywhere means synclastic (dome-like).</summary>
+public sealed record EnvelopeCurvature(double MinDefect, double MaxDefect, double TotalDefect, int Positive, int Interior)
+{
+    /// <summary>The figures of an envelope mesh, or null when it has no interior vertex.</summary>
+    public static EnvelopeCurvature? Of(CreaseMesh envelope)
+    {
+        var d = AngleDefects.Interior(envelope);
+        if (d.Length == 0) return null;
+        return new EnvelopeCurvature(d.Min(), d.Max(), d.Sum(), d.Count(x => x > 0), d.Length);
+    }
+
+    public bool Synclastic => Positive == Interior;
 }

@@ -48,4 +48,14 @@ public static class AngleDefects
         for (int v = 0; v < d.Length; v++) if (!boundary[v] && double.IsFinite(d[v])) m = Math.Max(m, Math.Abs(d[v]));
         return m;
     }
+
+    /// <summary>Defects at the interior vertices only, in vertex order, radians.</summary>
+    public static double[] Interior(CreaseMesh mesh)
+    {
+        var d = PerVertex(mesh);
+        var boundary = mesh.BoundaryVertices();
+        var list = new List<double>();
+        for (int v = 0; v < d.Length; v++) if (!boundary[v] && double.IsFinite(d[v])) list.Add(d[v]);
+        return list.ToArray();
+    }
 }

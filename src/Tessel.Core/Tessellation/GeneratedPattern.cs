@@ -24,6 +24,15 @@ public sealed record GeneratedPattern(
     /// on a dome) must travel along the constraint set in phase 2; a stiff penalty turns every step
     /// there into a creep, and the fit stops where phase 1 landed.</remarks>
     public double? InitialPenalty { get; init; }
+
+    /// <summary>The surface the family's top layer spans, as a triangulated grid built from a folded state
+    /// of this mesh (same vertex numbering), or null when the family defines none. The checks report its
+    /// angle defects: the envelope's discrete Gaussian curvature.</summary>
+    public Func<CreaseMesh, CreaseMesh>? Envelope { get; init; }
+
+    /// <summary>True when the family promises a synclastic envelope (K &gt; 0 at every interior envelope
+    /// vertex, geometry.md section 3); the build warns when the fitted envelope breaks the promise.</summary>
+    public bool PromisesSynclasticEnvelope { get; init; }
 }
 
 /// <summary>Constraint kinds a family asks the fitter to enforce.</summary>

@@ -80,13 +80,15 @@ public static class BuildRunner
         }
 
         double strainLimit = sheetSettings.Material.StrainLimit;
-        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress);
+        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress, tessellation.Pattern.Envelope);
         ModelOutputs.AddChecks(output, job, checks, strainLimit);
         if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
         if (checks.Strain.FacetsOverLimit.Length > 0)
             warnings.Add($"{checks.Strain.FacetsOverLimit.Length} facet(s) need more than the material's {strainLimit * 100:0.##} % strain to lie flat (largest {checks.Strain.MaxStrain * 100:0.###} %)");
         if (checks.ShortEdgeCount > 0)
             warnings.Add($"{checks.ShortEdgeCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestEdgeMm:0.##} mm)");
+        if (tessellation.Pattern.PromisesSynclasticEnvelope && checks.Envelope is { Synclastic: false } env)
+            warnings.Add($"the envelope is not synclastic: angle defect <= 0 at {env.Interior - env.Positive} of {env.Interior} interior envelope vertices (smallest {env.MinDefect:0.##E+0} rad); try another foldDepth or sectorAngleDeg");
         if (!checks.Path.ReachedNearFlat)
             warnings.Add($"the rigid folding path did not reach the flat sheet ({checks.Path.StopTowardFlat})");
 

@@ -91,6 +91,14 @@ public static class ModelOutputs
         output.AddFigure("checks", "facetsOverStrainLimit", (long)checks.Strain.FacetsOverLimit.Length);
         output.AddFigure("checks", "shortestEdgeMm", checks.ShortestEdgeMm);
         output.AddFigure("checks", "edgesBelowMinimumLength", (long)checks.ShortEdgeCount);
+        if (checks.Envelope is { } envelope)
+        {
+            output.AddFigure("checks", "envelopeMinDefectRad", envelope.MinDefect);
+            output.AddFigure("checks", "envelopeMaxDefectRad", envelope.MaxDefect);
+            output.AddFigure("checks", "envelopeTotalDefectRad", envelope.TotalDefect);
+            output.AddFigure("checks", "envelopePositiveVertices", (long)envelope.Positive);
+            output.AddFigure("checks", "envelopeInteriorVertices", (long)envelope.Interior);
+        }
         output.AddFile("fold-angles.csv", Encoding.UTF8.GetBytes(Core.Checks.FoldAngleTable.ToCsv(checks.FoldAngles)));
         if (job.Outputs.Svg)
             output.AddFile("crease-pattern.svg", CreasePatternSvg(checks.Flat, job));

@@ -34,6 +34,8 @@ public static class ReportAssembly
             new("Panel collisions", checks.CollisionCount.ToString(Inv)),
             new("Flat-layout strain", $"{(checks.Strain.MaxStrain * 100).ToString("0.####", Inv)} % (limit {(checks.Strain.StrainLimit * 100).ToString("0.##", Inv)} %)"),
         };
+        if (checks.Envelope is { } envelope)
+            rows.Add(new("Envelope curvature (angle defects)", $"{envelope.MinDefect.ToString("0.##E+0", Inv)} to {envelope.MaxDefect.ToString("0.##E+0", Inv)} rad, positive at {envelope.Positive} of {envelope.Interior} interior vertices"));
         if (sheets is not null)
         {
             var sf = sheets.Layout.Figures;

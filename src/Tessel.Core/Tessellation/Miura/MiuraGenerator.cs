@@ -38,7 +38,10 @@ public static class MiuraGenerator
             point.Write(pos, k);
         }
         var mesh = flat.WithPositions(pos);
-        return new GeneratedPattern(mesh, FamilyConstraints.All, FairnessStencils(nx, ny), AnchorVertex(nx, cellsX, cellsY), d);
+        return new GeneratedPattern(mesh, FamilyConstraints.All, FairnessStencils(nx, ny), AnchorVertex(nx, cellsX, cellsY), d)
+        {
+            Envelope = folded => TopEnvelope(folded, cellsX, cellsY),
+        };
     }
 
     /// <summary>Plan position of every vertex of the regular sheet (<see cref="RegularMiuraSheet"/> order),
@@ -139,5 +142,26 @@ public static class MiuraGenerator
         // Rows with odd j form the top layer; the middle row is j = cellsY.
         int j = cellsY % 2 == 1 ? cellsY : cellsY - 1;
         return j * nx + cellsX;
+    }
+
+    /// <summary>The envelope through the top-layer vertices that carry no zig-zag offset (odd rows j,
+    /// even columns i): a regular cellsY x (cellsX + 1) grid, split along one diagonal, whose angle
+    /// defects are its discrete Gaussian curvature. (The zig-zag vertices are left out: skinny triangles
+    /// through them can be non-convex even with every vertex on a sphere.)</summary>
+    public static CreaseMesh TopEnvelope(CreaseMesh folded, int cellsX, int cellsY)
+    {
+        int nx = 2 * cellsX + 1, cols = cellsX + 1, rows = cellsY;
+        var pos = new double[3 * cols * rows];
+        for (int t = 0; t < rows; t++)
+            for (int i = 0; i < cols; i++)
+                folded.Vertex((2 * t + 1) * nx + 2 * i).Write(pos, t * cols + i);
+        var faces = new List<int[]>();
+        for (int t = 0; t + 1 < rows; t++)
+            for (int i = 0; i + 1 < cols; i++)
+            {
+                int a = t * cols + i, b = a + 1, c = a + cols + 1, d = a + cols;
+                faces.Add([a, b, c]); faces.Add([a, c, d]);
+            }
+        return new CreaseMesh("envelope", pos, faces.ToArray(), new VertexLayer[cols * rows], (_, _) => CreaseRole.Flat);
     }
 }

@@ -42,7 +42,7 @@ public class ReverseCurvatureTests
         // K A = 0.25^2 / 16 = 0.0039 rad at each interior envelope vertex (Gauss-Bonnet, R = 4 m,
         // 0.25 m cells; derived here).
         var g = ReverseCurvatureGenerator.Generate(Dome, new ReverseCurvatureParameters(Sheet, 0.3));
-        var envelope = ReverseCurvatureGenerator.TopEnvelope(g.Mesh, 4, 4);
+        var envelope = MiuraGenerator.TopEnvelope(g.Mesh, 4, 4);
         var draped = AngleDefects.PerVertex(envelope);
         var boundary = envelope.BoundaryVertices();
         for (int v = 0; v < draped.Length; v++) if (!boundary[v]) Assert.Equal(0.0039, draped[v], 4);
@@ -72,7 +72,7 @@ public class ReverseCurvatureTests
         // 0.0018 .. 0.0048 rad at 4 x 4 and 0.00063 .. 0.0017 rad at 8 x 8 (the target's K A: 0.0039
         // and 0.00098 rad; seeds 2-4 kept every defect positive too, the smallest 0.0001 rad); with the
         // fitter's default penalty the 4 x 4 fit gave -0.0009 .. +0.0021.
-        var envelope = ReverseCurvatureGenerator.TopEnvelope(r.Mesh, cells, cells);
+        var envelope = MiuraGenerator.TopEnvelope(r.Mesh, cells, cells);
         var defects = AngleDefects.PerVertex(envelope);
         var boundary = envelope.BoundaryVertices();
         double kA = Math.Pow(1.0 / cells, 2) / 16;
@@ -97,7 +97,7 @@ public class ReverseCurvatureTests
         Assert.True(r.Converged, r.StopReason);
         Assert.InRange(r.Residuals.MaxConstraintViolation, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxDevelopability, 0, 1e-9);
-        var envelope = ReverseCurvatureGenerator.TopEnvelope(r.Mesh, 6, 6);
+        var envelope = MiuraGenerator.TopEnvelope(r.Mesh, 6, 6);
         var defects = AngleDefects.PerVertex(envelope);
         var boundary = envelope.BoundaryVertices();
         for (int v = 0; v < defects.Length; v++)
