@@ -74,6 +74,7 @@ public class ProgramTests
     [InlineData("saddle-canopy.json")]
     [InlineData("shallow-dome.json")]
     [InlineData("barrel-vault.json")]
+    [InlineData("garden-dome.json")]
     public void PatternsValidate(string file)
     {
         var (code, stdout, _) = Run("validate", Path.Combine(TestPaths.Patterns, file));

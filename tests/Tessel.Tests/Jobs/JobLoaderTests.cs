@@ -15,6 +15,7 @@ public class JobLoaderTests
     [InlineData("saddle-canopy.json", "hyperbolic-paraboloid", "miura")]
     [InlineData("shallow-dome.json", "spherical-cap", "waterbomb")]
     [InlineData("barrel-vault.json", "cylinder", "yoshimura")]
+    [InlineData("garden-dome.json", "spherical-cap", "reverse-curvature")]
     public void PatternsLoad(string file, string kind, string family)
     {
         var job = JobLoader.Load(Path.Combine(TestPaths.Patterns, file));

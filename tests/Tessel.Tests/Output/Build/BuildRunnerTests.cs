@@ -82,6 +82,7 @@ public class BuildRunnerTests
     [InlineData("saddle-canopy.json")]
     [InlineData("shallow-dome.json")]
     [InlineData("barrel-vault.json")]
+    [InlineData("garden-dome.json")]
     public void EveryPatternBuildsCompletelyAndRepeatsByteForByte(string file)
     {
         var job = JobLoader.Load(Path.Combine(TestPaths.Patterns, file));
@@ -105,5 +106,14 @@ public class BuildRunnerTests
         Assert.True(fit.GetProperty("maxPlanarityScaled").GetDouble() <= 1e-9);
         var checks = summary.RootElement.GetProperty("figures").GetProperty("checks");
         Assert.Equal(0, checks.GetProperty("collisions").GetInt64());
+        if (job.Tessellation.Family == "reverse-curvature")
+        {
+            // The family's acceptance (geometry.md section 3): a positive angle defect at every interior
+            // vertex of the envelope through the top layer.
+            long interior = checks.GetProperty("envelopeInteriorVertices").GetInt64();
+            Assert.True(interior > 0);
+            Assert.Equal(interior, checks.GetProperty("envelopePositiveVertices").GetInt64());
+            Assert.True(checks.GetProperty("envelopeMinDefectRad").GetDouble() > 0);
+        }
     }
 }
