@@ -47,8 +47,8 @@ public static class FreeTriangulatedGenerator
         if (!(p.FlatDiagonalShare >= 0 && p.FlatDiagonalShare <= 1))
             throw new ArgumentException($"FlatDiagonalShare = {p.FlatDiagonalShare} is outside [0, 1]; use e.g. 0.3 for 30 % planar quad panels", nameof(p.FlatDiagonalShare));
         var fp = target.Footprint;
-        int cx = Count(p.CellsX, p.CellSize, fp.Width, nameof(p.CellsX));
-        int cy = Count(p.CellsY, p.CellSize, fp.Depth, nameof(p.CellsY));
+        int cx = CellCounts.Resolve(p.CellsX, p.CellSize, fp.Width, nameof(p.CellsX));
+        int cy = CellCounts.Resolve(p.CellsY, p.CellSize, fp.Depth, nameof(p.CellsY));
         int nx = cx + 1;
         double dx = fp.Width / cx, dy = fp.Depth / cy;
         int Grid(int i, int j) => j * nx + i;
@@ -146,18 +146,6 @@ public static class FreeTriangulatedGenerator
         var random = new Random(unchecked(i * 73856093 ^ j * 19349663 ^ 0x5bd1e995));
         double u1 = 1 - random.NextDouble(), u2 = random.NextDouble();
         return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
-    }
-
-    private static int Count(int? count, double? cellSize, double extent, string name)
-    {
-        if (count is int c)
-        {
-            if (c < 2) throw new ArgumentException($"{name} = {c}: at least 2 cells are needed for an interior vertex", name);
-            return c;
-        }
-        if (cellSize is not double size || !(size > 0) || !double.IsFinite(size))
-            throw new ArgumentException($"{name} is not given and CellSize is not a positive length; give a cell count or a cell size in metres", name);
-        return Math.Max(2, (int)Math.Round(extent / size));
     }
 
     private static int CentralVertex(double[] pos)

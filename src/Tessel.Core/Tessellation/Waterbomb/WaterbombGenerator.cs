@@ -40,8 +40,8 @@ public static class WaterbombGenerator
         if (p.Tuck is double given && !(given > 0 && given < 0.5))
             throw new ArgumentException($"Tuck = {given} is outside (0, 0.5): without a tuck the midlines start flat; use e.g. 0.18 of the row height, or leave it out", nameof(p.Tuck));
         var fp = target.Footprint;
-        int bases = Count(p.Bases, p.CellSize, fp.Width, nameof(p.Bases));
-        int rows = Count(p.Rows, p.CellSize, fp.Depth, nameof(p.Rows));
+        int bases = CellCounts.Resolve(p.Bases, p.CellSize, fp.Width, nameof(p.Bases));
+        int rows = CellCounts.Resolve(p.Rows, p.CellSize, fp.Depth, nameof(p.Rows));
         double w = fp.Width / bases, h = fp.Depth / rows;
         if (!(p.FoldDepth < Math.Min(w, h)))
             throw new ArgumentException($"FoldDepth = {p.FoldDepth} m is not below the base size ({Math.Min(w, h):0.####} m); the bases would start folded shut, use a depth of about a fifth of it", nameof(p.FoldDepth));
@@ -231,18 +231,6 @@ public static class WaterbombGenerator
     {
         double area = (xy[2 * b] - xy[2 * a]) * (xy[2 * c + 1] - xy[2 * a + 1]) - (xy[2 * c] - xy[2 * a]) * (xy[2 * b + 1] - xy[2 * a + 1]);
         faces.Add(area > 0 ? [a, b, c] : [a, c, b]);
-    }
-
-    private static int Count(int? count, double? cellSize, double extent, string name)
-    {
-        if (count is int c)
-        {
-            if (c < 2) throw new ArgumentException($"{name} = {c}: at least 2 are needed for an interior base; use 2 or more", name);
-            return c;
-        }
-        if (cellSize is not double size || !(size > 0) || !double.IsFinite(size))
-            throw new ArgumentException($"{name} is not given and CellSize is not a positive length; give a count or a cell size in metres", name);
-        return Math.Max(2, (int)Math.Round(extent / size));
     }
 
     /// <summary>Same-kind second differences that vanish on the regular drape: grid vertices two lines

@@ -24,8 +24,8 @@ public static class YoshimuraGenerator
         if (Math.Max(Math.Abs(fp.MinY - yAxis), Math.Abs(fp.MaxY - yAxis)) >= radius)
             throw new ArgumentException($"the footprint reaches {Math.Max(Math.Abs(fp.MinY - yAxis), Math.Abs(fp.MaxY - yAxis)):0.###} m from the vault axis but the vault radius is {radius:0.###} m; use a narrower footprint", nameof(target));
         double th0 = Math.Asin((fp.MinY - yAxis) / radius), th1 = Math.Asin((fp.MaxY - yAxis) / radius);
-        int segments = Count(p.Segments, p.CellSize, radius * (th1 - th0), nameof(p.Segments));
-        int rings = Count(p.Rings, p.CellSize, fp.Width, nameof(p.Rings));
+        int segments = CellCounts.Resolve(p.Segments, p.CellSize, radius * (th1 - th0), nameof(p.Segments));
+        int rings = CellCounts.Resolve(p.Rings, p.CellSize, fp.Width, nameof(p.Rings));
         var ring = new YoshimuraRing(radius, (th1 - th0) / segments, fp.Width / rings);
 
         var rowStart = RowStarts(segments, rings);
@@ -59,8 +59,8 @@ public static class YoshimuraGenerator
         var fp = target.Footprint;
         var (radius, yAxis) = VaultCircle(target);
         double th0 = Math.Asin((fp.MinY - yAxis) / radius), th1 = Math.Asin((fp.MaxY - yAxis) / radius);
-        int segments = Count(p.Segments, p.CellSize, radius * (th1 - th0), nameof(p.Segments));
-        int rings = Count(p.Rings, p.CellSize, fp.Width, nameof(p.Rings));
+        int segments = CellCounts.Resolve(p.Segments, p.CellSize, radius * (th1 - th0), nameof(p.Segments));
+        int rings = CellCounts.Resolve(p.Rings, p.CellSize, fp.Width, nameof(p.Rings));
         return new YoshimuraRing(radius, (th1 - th0) / segments, fp.Width / rings);
     }
 
@@ -76,18 +76,6 @@ public static class YoshimuraGenerator
         if (!(kMax > 1e-9))
             throw new ArgumentException("the target is flat across its centre; a Yoshimura pattern needs a vault (a cylinder-like surface curved across y)", nameof(target));
         return (1 / kMax, cy);
-    }
-
-    private static int Count(int? count, double? cellSize, double extent, string name)
-    {
-        if (count is int c)
-        {
-            if (c < 2) throw new ArgumentException($"{name} = {c}: at least 2 are needed for an interior vertex", name);
-            return c;
-        }
-        if (cellSize is not double size || !(size > 0) || !double.IsFinite(size))
-            throw new ArgumentException($"{name} is not given and CellSize is not a positive length; give a count or a cell size in metres", name);
-        return Math.Max(2, (int)Math.Round(extent / size));
     }
 
     private static int RowLength(int j, int segments) => j % 2 == 0 ? segments + 1 : segments;
