@@ -74,7 +74,9 @@ public static class RigidFoldingPath
             _acceptResidual = double.PositiveInfinity;
             _pinTargets = [];
             Correct(x0, 1.0, out _);
-            _acceptResidual = Math.Max(_settings.ConstraintTolerance, 2 * MaxAbs(Residuals(x0)));
+            // The corrector can stagnate at a few times 1e-12 (measured on the 12 m demo canopy fitted to
+            // 2e-13): accept up to ten times the tolerance; the reported drift shows what was accepted.
+            _acceptResidual = Math.Max(10 * _settings.ConstraintTolerance, 2 * MaxAbs(Residuals(x0)));
             Accept(x0);
             var keys = _settings.EffectiveKeyframes.Where(k => k > 0).Distinct().OrderBy(k => k).ToArray();
             if (keys.Any(k => Math.Abs(k - 1) < 1e-12)) Keep(1.0, x0);

@@ -106,6 +106,8 @@ public class BuildRunnerTests
         Assert.True(fit.GetProperty("maxPlanarityScaled").GetDouble() <= 1e-9);
         var checks = summary.RootElement.GetProperty("figures").GetProperty("checks");
         Assert.Equal(0, checks.GetProperty("collisions").GetInt64());
+        // Each bundled pattern folds rigidly from near-flat to its fitted state (geometry.md section 4).
+        Assert.True(checks.GetProperty("pathReachedNearFlat").GetBoolean(), checks.GetProperty("pathStopTowardFlat").GetString());
         if (job.Tessellation.Family == "reverse-curvature")
         {
             // The family's acceptance (geometry.md section 3): a positive angle defect at every interior
