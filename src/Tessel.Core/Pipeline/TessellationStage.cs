@@ -51,6 +51,9 @@ public static class TessellationStage
     {
         double cx = spec.CellsX is int nx ? fp.Width / nx : (spec.CellSize ?? fp.Width / 8) * metres;
         double cy = spec.CellsY is int ny ? fp.Depth / ny : (spec.CellSize ?? fp.Depth / 8) * metres;
+        // Waterbomb bases have no sector-angle parameter: their centres start a fifth of the base above the
+        // grid lines (the depth the generator's messages recommend); Miura-type sheets derive it from the angle.
+        if (spec.Family == "waterbomb") return 0.2 * Math.Min(cx, cy);
         return 0.25 * Math.Min(cx, cy) * Math.Tan(spec.SectorAngleDeg * Math.PI / 180) / 2;
     }
 
