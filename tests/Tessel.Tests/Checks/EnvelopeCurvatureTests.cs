@@ -1,11 +1,11 @@
 using Tessel.Core.Fitting;
-using Tessel.Core.Pipeline;
+using Tessel.Core.Checks;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation.Miura;
 using Tessel.Core.Tessellation.ReverseCurvature;
 using Tessel.Tests.Fitting;
 
-namespace Tessel.Tests.Pipeline;
+namespace Tessel.Tests.Checks;
 
 /// <summary>The envelope-curvature check that the build reports for Miura-type families.</summary>
 public class EnvelopeCurvatureTests
