@@ -182,16 +182,20 @@ public static class ModelOutputs
 
     /// <summary>The whole flat crease pattern at model scale on one true-size sheet with a 10 mm border:
     /// boundary as cut, mountain and valley in their own layers.</summary>
+    /// <summary>Narrowest legend strip of the crease-pattern drawing (the title, print check and legend
+    /// blocks side by side need about this much at the sheets' text height).</summary>
+    private const double MinimumLegendWidthMm = 240;
+
     private static byte[] CreasePatternSvg(FlatPattern flat, Job job)
     {
         double k = 1000.0 / job.Fabrication.Scale, border = 10;
-        double minX = double.MaxValue, maxX = double.MinValue, minY = double.MaxValue, maxY = double.MinValue;
-        for (int v = 0; v < flat.VertexCount; v++)
-        {
-            var p = flat.Vertex(v);
-            minX = Math.Min(minX, p.X); maxX = Math.Max(maxX, p.X); minY = Math.Min(minY, p.Y); maxY = Math.Max(maxY, p.Y);
-        }
-        Vec2 At(int v) { var p = flat.Vertex(v); return new Vec2((p.X - minX) * k + border, (maxY - p.Y) * k + border); }
+        // Turned onto its minimum-area rectangle, wider than tall, as the sheets turn their parts.
+        var points = Enumerable.Range(0, flat.VertexCount).Select(flat.Vertex).ToArray();
+        var box = MinimumAreaRectangle.Of(MinimumAreaRectangle.ConvexHull(points));
+        double angle = box.Width >= box.Height ? box.Angle : box.Angle + Math.PI / 2;
+        var turned = points.Select(p => p.Rotated(angle)).ToArray();
+        double minX = turned.Min(p => p.X), maxX = turned.Max(p => p.X), minY = turned.Min(p => p.Y), maxY = turned.Max(p => p.Y);
+        Vec2 At(int v) { var p = turned[v]; return new Vec2((p.X - minX) * k + border, (maxY - p.Y) * k + border); }
         var lines = new List<SheetLine>();
         for (int e = 0; e < flat.EdgeCount; e++)
         {
@@ -206,8 +210,16 @@ public static class ModelOutputs
             var (a, b) = flat.Edge(e);
             lines.Add(new SheetLine(cls.Value, [At(a), At(b)]));
         }
-        var sheet = new Sheet(1, (maxX - minX) * k + 2 * border, (maxY - minY) * k + 2 * border, lines.ToArray());
-        return Bytes(new SvgSheetWriter(), [sheet], SheetStage.StylesFor(job));
+        // A legend strip under the pattern (title, print check, line legend), at least wide enough for it.
+        var styles = SheetStage.StylesFor(job);
+        var content = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false);
+        double width = Math.Max((maxX - minX) * k + 2 * border, MinimumLegendWidthMm + 2 * border);
+        var classes = lines.Select(l => l.Class).Distinct().ToArray();
+        double strip = SheetAnnotations.RequiredStripHeight(width - 2 * border, content, styles, classes);
+        double patternBottom = (maxY - minY) * k + border;
+        var sheet = new Sheet(1, width, patternBottom + border + strip + border, lines.ToArray());
+        sheet = SheetAnnotations.AddToStrip(sheet, new SheetRegion(border, patternBottom + border, width - 2 * border, strip), content, styles).Sheet;
+        return Bytes(new SvgSheetWriter(), [sheet], styles);
     }
 
     /// <summary>Signed distance of each vertex from the surface its layer belongs on (metres).</summary>

@@ -1,3 +1,4 @@
+using Tessel.Core.Sheets;
 using System.Text.Json;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
@@ -95,6 +96,14 @@ public class BuildRunnerTests
             Assert.True(File.ReadAllBytes(Path.Combine(a, name)).AsSpan().SequenceEqual(File.ReadAllBytes(Path.Combine(b, name))), $"{file}: {name} differs between two builds");
         foreach (var expected in new[] { "folded.obj", "fold-angles.csv", "crease-pattern.svg", "sheets/sheets.pdf", "sheets/sheet-01.svg", "sheets/sheet-01.dxf", "report.html", "summary.md" })
             Assert.Contains(expected, first.Files.Select(f => f.Path));
+
+        // The standalone crease pattern carries its own legend: notes (title, print check, legend text) are
+        // drawn, and the 100 mm print-check bar needs a drawing at least that wide.
+        var creases = System.Xml.Linq.XDocument.Load(Path.Combine(a, "crease-pattern.svg"));
+        System.Xml.Linq.XNamespace svg = "http://www.w3.org/2000/svg";
+        var notes = creases.Descendants(svg + "g").Single(g => (string?)g.Attribute("id") == "TS-NOTE-PRINT");
+        Assert.True(notes.Elements(svg + "path").Count() > 20, "the crease pattern has no legend");
+        Assert.True(double.Parse(creases.Root!.Attribute("viewBox")!.Value.Split(' ')[2], System.Globalization.CultureInfo.InvariantCulture) > SheetAnnotations.ScaleBarLengthMm);
 
         using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(a, "summary.json")));
         var fit = summary.RootElement.GetProperty("figures").GetProperty("fit");
