@@ -42,11 +42,14 @@ public sealed class SupernodalCholesky : ICholeskyFactor
     private readonly int[] childCount;
     private readonly long stackPeak;
     private readonly long updatePeak;
+    /// <summary>Two-way split of the elimination tree for the numeric step: supernodes [0, splitLast] and
+    /// (splitLast, tailFirst) are disjoint unions of subtrees, factored on two threads; [tailFirst, end) is
+    /// their common ancestors, factored after both. -1 when the tree does not split usefully.</summary>
+    private readonly int splitLast, tailFirst;
+    private FrontStack? secondStack;
 
     private double[] factor = [];
-    private double[] stack = [];
-    private double[] update = [];
-    private int[] localOf = [];
+    private FrontStack? mainStack;
     private double[] work = [];
     private double[] columnWork = [];
 
@@ -61,6 +64,11 @@ public sealed class SupernodalCholesky : ICholeskyFactor
     public int SupernodeCount => supernodes;
     /// <summary>Multiply-adds of one numeric factorisation (exact count for this structure).</summary>
     public double FactorFlops { get; }
+    /// <summary>Whether the numeric step may factor the two halves of the elimination tree on two threads
+    /// (same bits either way).</summary>
+    public bool TwoThreads { get; set; } = true;
+    /// <summary>True when the elimination tree splits into two subtrees worth a thread each.</summary>
+    public bool Splits => splitLast >= 0;
     /// <summary>A pivot d counts as failed when d &lt;= RelativePivotTolerance * A(i,i).</summary>
     public double RelativePivotTolerance { get; set; } = 1e-14;
 
@@ -137,6 +145,7 @@ public sealed class SupernodalCholesky : ICholeskyFactor
         Array.Fill(marker, -1);
         var below = new List<int>();
         double flops = 0;
+        var superFlops = new double[supernodes];
         long stackNow = 0, stackMax = 0, updateMax = 0;
         var stackSizes = new Stack<long>();
         for (int s = 0; s < supernodes; s++)
@@ -171,12 +180,14 @@ public sealed class SupernodalCholesky : ICholeskyFactor
             updateMax = Math.Max(updateMax, mu * mu);
             // Bordering: row i < k takes dots of lengths 0..i; rows below take 0..k-1; the Schur
             // complement takes one dot of length k per lower entry.
-            flops += (k - 1.0) * k * (k + 1.0) / 6 + mu * k * (k - 1.0) / 2 + mu * (mu + 1.0) / 2 * k;
+            superFlops[s] = (k - 1.0) * k * (k + 1.0) / 6 + mu * k * (k - 1.0) / 2 + mu * (mu + 1.0) / 2 * k;
+            flops += superFlops[s];
         }
         superRows = allRows.ToArray();
         stackPeak = stackMax;
         updatePeak = updateMax;
         FactorFlops = flops;
+        (splitLast, tailFirst) = ParallelSplit(childList, superFlops, flops);
         if (factorStart[supernodes] > Array.MaxLength || stackPeak > Array.MaxLength)
             throw new InvalidOperationException($"factor of {factorStart[supernodes]} entries is too large");
     }
@@ -193,49 +204,73 @@ public sealed class SupernodalCholesky : ICholeskyFactor
         if (factor.Length != factorStart[supernodes])
         {
             factor = new double[factorStart[supernodes]];
-            stack = new double[stackPeak];
-            update = new double[updatePeak];
-            localOf = new int[n];
+            mainStack = new FrontStack(stackPeak, updatePeak, n, supernodes);
             work = new double[n];
             int widest = 0;
             for (int s = 0; s < supernodes; s++) widest = Math.Max(widest, superFirst[s + 1] - superFirst[s]);
             columnWork = new double[widest];
         }
-        double[] values = a.Values, l = factor;
-        var stackOffset = new long[supernodes];
-        var stackOwner = new int[supernodes];
-        int stackDepth = 0;
-        long stackTop = 0;
+        var main = mainStack!;
+        main.Depth = 0; main.Top = 0;
+        double[] values = a.Values;
+        if (!TwoThreads || splitLast < 0 || Environment.ProcessorCount < 2)
+            return FactorRange(0, supernodes, values, main, out failedRow, out failedPivot);
 
-        for (int s = 0; s < supernodes; s++)
+        // Two subtrees on two threads, each with its own stack; every supernode does the same arithmetic
+        // in the same order as in the serial loop, so the factor is bit-identical.
+        var second = secondStack ??= new FrontStack(stackPeak, updatePeak, n, supernodes);
+        second.Depth = 0; second.Top = 0;
+        int rowB = -1; double pivotB = 0; bool okB = true;
+        var other = Task.Run(() => okB = FactorRange(splitLast + 1, tailFirst, values, second, out rowB, out pivotB));
+        bool okA = FactorRange(0, splitLast + 1, values, main, out int rowA, out double pivotA);
+        other.Wait();
+        if (!okA) { failedRow = rowA; failedPivot = pivotA; return false; }
+        if (!okB) { failedRow = rowB; failedPivot = pivotB; return false; }
+        // The second subtree's updates go on top of the first's, as the serial loop leaves them.
+        Array.Copy(second.Stack, 0, main.Stack, main.Top, second.Top);
+        for (int e = 0; e < second.Depth; e++)
+        {
+            main.Offset[main.Depth + e] = main.Top + second.Offset[e];
+            main.Owner[main.Depth + e] = second.Owner[e];
+        }
+        main.Depth += second.Depth;
+        main.Top += second.Top;
+        return FactorRange(tailFirst, supernodes, values, main, out failedRow, out failedPivot);
+    }
+
+    /// <summary>Factors supernodes [from, to) in postorder on <paramref name="st"/>'s stack.</summary>
+    private bool FactorRange(int from, int to, double[] values, FrontStack st, out int failedRow, out double failedPivot)
+    {
+        double[] l = factor;
+        for (int s = from; s < to; s++)
         {
             int f = superFirst[s], k = superFirst[s + 1] - f;
             int r0 = superRowStart[s], m = superRowStart[s + 1] - r0, mu = m - k;
             long block = factorStart[s];
-            for (int t = 0; t < m; t++) localOf[superRows[r0 + t]] = t;
+            for (int t = 0; t < m; t++) st.LocalOf[superRows[r0 + t]] = t;
             Array.Clear(l, (int)block, m * k);
-            Array.Clear(update, 0, mu * mu);
+            Array.Clear(st.Update, 0, mu * mu);
 
             // Assemble A's columns of this supernode.
             for (int j = f; j < f + k; j++)
                 for (int p = columnStart[j]; p < columnStart[j + 1]; p++)
-                    l[block + (long)localOf[columnRow[p]] * k + (j - f)] += values[columnSource[p]];
+                    l[block + (long)st.LocalOf[columnRow[p]] * k + (j - f)] += values[columnSource[p]];
 
             // Extend-add the children's update matrices (the top childCount entries of the stack).
-            int firstChild = stackDepth - childCount[s];
-            for (int e = firstChild; e < stackDepth; e++)
+            int firstChild = st.Depth - childCount[s];
+            for (int e = firstChild; e < st.Depth; e++)
             {
-                int c = stackOwner[e];
+                int c = st.Owner[e];
                 int kc = superFirst[c + 1] - superFirst[c];
                 int rc = superRowStart[c] + kc, mc = superRowStart[c + 1] - rc;
-                long u = stackOffset[e];
+                long u = st.Offset[e];
                 for (int x = 0; x < mc; x++)
                 {
-                    int lx = localOf[superRows[rc + x]];
+                    int lx = st.LocalOf[superRows[rc + x]];
                     long ux = u + (long)x * mc;
                     if (lx < k)
                     {
-                        for (int y = 0; y <= x; y++) l[block + (long)lx * k + localOf[superRows[rc + y]]] += stack[ux + y];
+                        for (int y = 0; y <= x; y++) l[block + (long)lx * k + st.LocalOf[superRows[rc + y]]] += st.Stack[ux + y];
                     }
                     else
                     {
@@ -243,15 +278,15 @@ public sealed class SupernodalCholesky : ICholeskyFactor
                         int rowU = (lx - k) * mu;
                         for (int y = 0; y <= x; y++)
                         {
-                            int ly = localOf[superRows[rc + y]];
-                            if (ly < k) l[rowL + ly] += stack[ux + y];
-                            else update[rowU + ly - k] += stack[ux + y];
+                            int ly = st.LocalOf[superRows[rc + y]];
+                            if (ly < k) l[rowL + ly] += st.Stack[ux + y];
+                            else st.Update[rowU + ly - k] += st.Stack[ux + y];
                         }
                     }
                 }
             }
-            if (firstChild < stackDepth) stackTop = stackOffset[firstChild];
-            stackDepth = firstChild;
+            if (firstChild < st.Depth) st.Top = st.Offset[firstChild];
+            st.Depth = firstChild;
 
             // Dense partial Cholesky of the front: the k pivot columns (bordering, row by row), first
             // the diagonal block L11, then L21 = F21 L11^-T two rows at a time.
@@ -305,10 +340,10 @@ public sealed class SupernodalCholesky : ICholeskyFactor
                 {
                     long rowJ0 = block + (long)(k + j) * k;
                     DenseKernels.Dot2x2(l, rowI0, rowI1, rowJ0, rowJ0 + k, k, out double s00, out double s01, out double s10, out double s11);
-                    update[u0 + j] -= s00;
-                    if (j + 1 <= i) update[u0 + j + 1] -= s01;
-                    update[u1 + j] -= s10;
-                    update[u1 + j + 1] -= s11;
+                    st.Update[u0 + j] -= s00;
+                    if (j + 1 <= i) st.Update[u0 + j + 1] -= s01;
+                    st.Update[u1 + j] -= s10;
+                    st.Update[u1 + j + 1] -= s11;
                 }
             }
             for (int i = pairs; i < mu; i++)
@@ -316,15 +351,15 @@ public sealed class SupernodalCholesky : ICholeskyFactor
                 long rowI = block + (long)(k + i) * k;
                 int rowU = i * mu;
                 for (int j = 0; j <= i; j++)
-                    update[rowU + j] -= DenseKernels.Dot(l, rowI, l, block + (long)(k + j) * k, k);
+                    st.Update[rowU + j] -= DenseKernels.Dot(l, rowI, l, block + (long)(k + j) * k, k);
             }
             if (mu > 0)
             {
-                Array.Copy(update, 0, stack, stackTop, mu * mu);
-                stackOffset[stackDepth] = stackTop;
-                stackOwner[stackDepth] = s;
-                stackDepth++;
-                stackTop += (long)mu * mu;
+                Array.Copy(st.Update, 0, st.Stack, st.Top, mu * mu);
+                st.Offset[st.Depth] = st.Top;
+                st.Owner[st.Depth] = s;
+                st.Depth++;
+                st.Top += (long)mu * mu;
             }
         }
         failedRow = -1;
@@ -558,5 +593,65 @@ public sealed class SupernodalCholesky : ICholeskyFactor
                 }
         }
         return count;
+    }
+
+    /// <summary>Split for the two-thread numeric step (see <see cref="splitLast"/>): below the chain of
+    /// single-child supernodes at the top (the top separators), the children's subtrees are cut into two
+    /// contiguous groups of about equal work. Only when each group holds at least a fifth of the work and
+    /// the whole is worth a thread (2e7 multiply-adds).</summary>
+    private (int SplitLast, int TailFirst) ParallelSplit(List<int>[] children, double[] superFlops, double total)
+    {
+        if (supernodes < 3 || total < 2e7) return (-1, -1);
+        int roots = 0;
+        for (int s = 0; s < supernodes; s++) if (IsRoot(s, children)) roots++;
+        if (roots != 1) return (-1, -1);
+        int r = supernodes - 1;
+        while (children[r].Count == 1) r = children[r][0];
+        if (children[r].Count < 2) return (-1, -1);
+        var kids = children[r];
+        kids.Sort();
+        // In postorder the children's subtrees tile [0, r - 1]; cut after the child whose prefix is nearest half.
+        double below = 0;
+        for (int s = 0; s < r; s++) below += superFlops[s];
+        double prefix = 0, best = double.PositiveInfinity;
+        int cut = -1, start = 0;
+        for (int c = 0; c + 1 < kids.Count; c++)
+        {
+            for (int s = start; s <= kids[c]; s++) prefix += superFlops[s];
+            start = kids[c] + 1;
+            double gap = Math.Abs(prefix - 0.5 * below);
+            if (gap < best) { best = gap; cut = kids[c]; }
+        }
+        double first = 0;
+        for (int s = 0; s <= cut; s++) first += superFlops[s];
+        if (first < 0.2 * total || below - first < 0.2 * total) return (-1, -1);
+        return (cut, r);
+    }
+
+    private bool IsRoot(int s, List<int>[] children)
+    {
+        // A supernode is a child of exactly one other; the roots are those nobody lists.
+        if (rootMarks is null)
+        {
+            rootMarks = new bool[supernodes];
+            Array.Fill(rootMarks, true);
+            foreach (var list in children) foreach (int c in list) rootMarks[c] = false;
+        }
+        return rootMarks[s];
+    }
+
+    private bool[]? rootMarks;
+
+    /// <summary>Scratch of one thread of the numeric step: the stack of children's update matrices, the
+    /// update matrix being formed and the row-to-front map.</summary>
+    private sealed class FrontStack(long stackSize, long updateSize, int n, int supernodes)
+    {
+        public readonly double[] Stack = new double[stackSize];
+        public readonly double[] Update = new double[updateSize];
+        public readonly int[] LocalOf = new int[n];
+        public readonly long[] Offset = new long[supernodes];
+        public readonly int[] Owner = new int[supernodes];
+        public int Depth;
+        public long Top;
     }
 }

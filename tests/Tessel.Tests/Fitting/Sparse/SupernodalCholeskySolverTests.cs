@@ -77,4 +77,48 @@ public class SupernodalCholeskySolverTests
             Assert.Same(firstAnalysis, solver.Analysis);
         }
     }
+
+    [Fact]
+    public void TwoThreadsGiveTheSameBitsAsOne()
+    {
+        // Determinism (same job, same bytes) must not depend on the machine's core count.
+        var (a, b) = SparseTestSystems.GaussNewtonSystem(60, 60, 1e-3);
+        var factor = SupernodalCholesky.Analyze(a);
+        Assert.True(factor.Splits, "a 60 x 60 grid should split into two subtrees worth a thread each");
+        var serial = new double[b.Length];
+        factor.TwoThreads = false;
+        factor.Factorize(a);
+        factor.Solve(b, serial);
+        var parallel = new double[b.Length];
+        factor.TwoThreads = true;
+        factor.Factorize(a);
+        factor.Solve(b, parallel);
+        Assert.Equal(serial, parallel);
+        // And the answer is right: residual of the parallel solve.
+        var ax = new double[b.Length];
+        a.Multiply(parallel, ax);
+        double r = 0, nb = 0;
+        for (int i = 0; i < b.Length; i++) { r += (ax[i] - b[i]) * (ax[i] - b[i]); nb += b[i] * b[i]; }
+        Assert.True(Math.Sqrt(r / nb) < 1e-10, $"relative residual {Math.Sqrt(r / nb)}");
+    }
+
+    [Fact]
+    public void AFailedPivotInEitherHalfIsReportedAsInOneThread()
+    {
+        var (a, b) = SparseTestSystems.GaussNewtonSystem(60, 60, 1e-3);
+        var factor = SupernodalCholesky.Analyze(a);
+        // Break one diagonal entry in each half of the split in turn: the serial and two-thread runs must
+        // name the same row.
+        foreach (int original in new[] { factor.NewToOld[0], factor.NewToOld[b.Length / 2] })
+        {
+            var broken = new CsrMatrix(a.Rows, a.Columns, a.RowStart, a.ColumnIndices, (double[])a.Values.Clone());
+            for (int k = broken.RowStart[original]; k < broken.RowStart[original + 1]; k++)
+                if (broken.ColumnIndices[k] == original) broken.Values[k] = -1;
+            factor.TwoThreads = false;
+            Assert.False(factor.TryFactorize(broken, out int serialRow, out _));
+            factor.TwoThreads = true;
+            Assert.False(factor.TryFactorize(broken, out int parallelRow, out _));
+            Assert.Equal(serialRow, parallelRow);
+        }
+    }
 }
