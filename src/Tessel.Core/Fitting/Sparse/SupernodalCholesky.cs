@@ -602,9 +602,10 @@ public sealed class SupernodalCholesky : ICholeskyFactor
     private (int SplitLast, int TailFirst) ParallelSplit(List<int>[] children, double[] superFlops, double total)
     {
         if (supernodes < 3 || total < 2e7) return (-1, -1);
-        int roots = 0;
-        for (int s = 0; s < supernodes; s++) if (IsRoot(s, children)) roots++;
-        if (roots != 1) return (-1, -1);
+        // One tree: every supernode but the last is somebody's child.
+        int childEntries = 0;
+        foreach (var list in children) childEntries += list.Count;
+        if (childEntries != supernodes - 1) return (-1, -1);
         int r = supernodes - 1;
         while (children[r].Count == 1) r = children[r][0];
         if (children[r].Count < 2) return (-1, -1);
@@ -627,20 +628,6 @@ public sealed class SupernodalCholesky : ICholeskyFactor
         if (first < 0.2 * total || below - first < 0.2 * total) return (-1, -1);
         return (cut, r);
     }
-
-    private bool IsRoot(int s, List<int>[] children)
-    {
-        // A supernode is a child of exactly one other; the roots are those nobody lists.
-        if (rootMarks is null)
-        {
-            rootMarks = new bool[supernodes];
-            Array.Fill(rootMarks, true);
-            foreach (var list in children) foreach (int c in list) rootMarks[c] = false;
-        }
-        return rootMarks[s];
-    }
-
-    private bool[]? rootMarks;
 
     /// <summary>Scratch of one thread of the numeric step: the stack of children's update matrices, the
     /// update matrix being formed and the row-to-front map.</summary>
