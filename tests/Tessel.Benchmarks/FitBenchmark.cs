@@ -11,7 +11,7 @@ namespace Tessel.Benchmarks;
 /// <summary>`fit` verb: one-start epsilon = 0 fits of a Miura sheet on the saddle z = x y / c for a list
 /// of sizes: wall time, linear solves, peak working set, the log-log slope of time against unknowns,
 /// and the ratio against the dense oracle on the largest size it is run on.</summary>
-/// <remarks>Usage: fit [10,20,40,80,100] [solver=supernodal|skyline|auto|banded|dense] [dense=10] [-v].
+/// <remarks>Usage: fit [10,20,40,80,100] [solver=supernodal|skyline|auto|banded|dense] [dense=10] [cap=300] [-v].
 /// Sizes run in increasing order in one process, so the peak working set reported for a size is the
 /// peak over it and every smaller one.</remarks>
 public static class FitBenchmark
@@ -23,6 +23,7 @@ public static class FitBenchmark
         string solverName = Option(args, "solver") ?? "default";
         int denseSize = int.Parse(Option(args, "dense") ?? "0", CultureInfo.InvariantCulture);
         var settings = new FitSettings { StartPerturbation = 0 };
+        if (Option(args, "cap") is string cap) settings = settings with { MaxIterations = int.Parse(cap, CultureInfo.InvariantCulture) };
         if (Option(args, "mu") is string mu) settings = settings with { InitialPenalty = double.Parse(mu, CultureInfo.InvariantCulture) };
 
         Console.WriteLine($"saddle fit, one start, eps = 0, solver {solverName}, {Environment.ProcessorCount} cores");

@@ -142,27 +142,32 @@ internal sealed class BlockNormalSystem
         return max;
     }
 
-    /// <summary>grad_r . step over the row's free vertices (the row's linearised change).</summary>
-    public double RowDirectional(int r, double[] grad, double[] step)
+    /// <summary>grad_r . step over the row's free vertices (the row's linearised change);
+    /// <paramref name="rowGradient"/> holds the row's own 3 x (vertices of the row) entries.</summary>
+    public double RowDirectional(int r, ReadOnlySpan<double> rowGradient, double[] step)
     {
         double sum = 0;
-        for (int k = _rows.Start[r]; k < _rows.Start[r + 1]; k++)
+        int first = _rows.Start[r];
+        for (int k = first; k < _rows.Start[r + 1]; k++)
         {
             int a = FreeIndex[_rows.Vertices[k]];
             if (a < 0) continue;
-            sum += grad[3 * k] * step[3 * a] + grad[3 * k + 1] * step[3 * a + 1] + grad[3 * k + 2] * step[3 * a + 2];
+            int g = 3 * (k - first);
+            sum += rowGradient[g] * step[3 * a] + rowGradient[g + 1] * step[3 * a + 1] + rowGradient[g + 2] * step[3 * a + 2];
         }
         return sum;
     }
 
-    /// <summary>rhs -= coefficient * grad_r over the row's free vertices.</summary>
-    public void SubtractRowGradient(int r, double coefficient, double[] grad, double[] rhs)
+    /// <summary>rhs -= coefficient * grad_r over the row's free vertices (row gradient as in
+    /// <see cref="RowDirectional"/>).</summary>
+    public void SubtractRowGradient(int r, double coefficient, ReadOnlySpan<double> rowGradient, double[] rhs)
     {
-        for (int k = _rows.Start[r]; k < _rows.Start[r + 1]; k++)
+        int first = _rows.Start[r];
+        for (int k = first; k < _rows.Start[r + 1]; k++)
         {
             int a = FreeIndex[_rows.Vertices[k]];
             if (a < 0) continue;
-            for (int i = 0; i < 3; i++) rhs[3 * a + i] -= coefficient * grad[3 * k + i];
+            for (int i = 0; i < 3; i++) rhs[3 * a + i] -= coefficient * rowGradient[3 * (k - first) + i];
         }
     }
 
@@ -186,6 +191,28 @@ internal sealed class BlockNormalSystem
                     values[row + 2] += scale * hess[h + 2];
                 }
             }
+    }
+
+    /// <summary>Copies the diagonal out (to undo <see cref="Damp"/> without keeping the whole matrix).</summary>
+    public void CopyDiagonal(double[] into)
+    {
+        var values = Matrix.Values;
+        for (int i = 0; i < _diag.Length; i++) into[i] = values[_diag[i]];
+    }
+
+    /// <summary>Puts a diagonal saved by <see cref="CopyDiagonal"/> back.</summary>
+    public void SetDiagonal(double[] from)
+    {
+        var values = Matrix.Values;
+        for (int i = 0; i < _diag.Length; i++) values[_diag[i]] = from[i];
+    }
+
+    /// <summary>Largest |entry| of the matrix (the scale of the damping floor).</summary>
+    public double MaxAbsEntry()
+    {
+        double max = 0;
+        foreach (var v in Matrix.Values) max = Math.Max(max, Math.Abs(v));
+        return max;
     }
 
     /// <summary>Adds lambda * (diag_i + floor) to every diagonal entry (Marquardt scaling with a floor

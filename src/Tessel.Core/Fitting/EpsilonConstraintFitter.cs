@@ -132,14 +132,15 @@ internal sealed class FitRun
         int used = 0, rejectedInRow = 0;
         int n = _system.Unknowns;
         // Scratch owned by the run: large sheets would otherwise allocate (and collect) hundreds of MB per step.
-        var s = _scratch ??= new Scratch(n, _x.Length, _rows.RowCount, _grad.Length);
+        var s = _scratch ??= new Scratch(n, _x.Length, _rows.RowCount, EqualityGradientLength());
         double[] rhs = s.Rhs, step = s.Step, correction = s.Correction, soc = s.Soc;
         double[] trial = s.Trial, corrected = s.Corrected;
-        double[] savedValue = s.SavedValue, savedGrad = s.SavedGrad, savedWeight = s.SavedWeight;
+        double[] savedValue = s.SavedValue, savedWeight = s.SavedWeight;
         Evaluate(_x);
         double merit = Merit(phase);
         if (done()) return;
-        double[]? undamped = null;
+        double[] undampedDiagonal = s.UndampedDiagonal;
+        double maxEntry = 0;
         bool assembled = false;
         while (used < maxSolves)
         {
@@ -148,19 +149,19 @@ internal sealed class FitRun
                 Merit(phase);
                 _system.Assemble(_weight, _residual, _grad, rhs);
                 if (phase == Optimality) AddConstraintCurvature();
-                undamped = s.Undamped ??= new double[_system.Matrix.Values.Length];
-                Array.Copy(_system.Matrix.Values, undamped, undamped.Length);
+                // Damping touches only the diagonal, so only the diagonal is kept to undo it (a copy of
+                // the whole matrix was 55 MB at 100 x 100 cells).
+                _system.CopyDiagonal(undampedDiagonal);
+                maxEntry = _system.MaxAbsEntry();
                 assembled = true;
             }
-            else Array.Copy(undamped!, _system.Matrix.Values, undamped!.Length);
-            double maxDiag = 0;
-            foreach (var v in undamped!) maxDiag = Math.Max(maxDiag, Math.Abs(v));
-            _system.Damp(damping, 1e-9 * maxDiag + 1e-300);
+            else _system.SetDiagonal(undampedDiagonal);
+            _system.Damp(damping, 1e-9 * maxEntry + 1e-300);
             Array.Clear(step);
             var stats = TimedSolve(rhs, step, again: false);
             used++;
             _system.Apply(_x, step, trial);
-            _value.AsSpan().CopyTo(savedValue); _grad.AsSpan().CopyTo(savedGrad); _weight.AsSpan().CopyTo(savedWeight);
+            _value.AsSpan().CopyTo(savedValue); _weight.AsSpan().CopyTo(savedWeight); SaveWeightedConstraintGradients(s);
             double trialMerit = double.PositiveInfinity;
             // An indefinite system (the constraint curvature outweighs the damping) is a rejected step.
             bool evaluated = stats.Converged && AllFinite(step);
@@ -176,10 +177,11 @@ internal sealed class FitRun
                 {
                     double w = savedWeight[r];
                     if (w == 0) continue;
-                    double predicted = savedValue[r] + _system.RowDirectional(r, savedGrad, step);
+                    var rowGradient = s.SavedGradient.AsSpan(s.SavedAt[r], 3 * (_rows.Start[r + 1] - _rows.Start[r]));
+                    double predicted = savedValue[r] + _system.RowDirectional(r, rowGradient, step);
                     double error = _value[r] - predicted;
                     if (error == 0 || !double.IsFinite(error)) continue;
-                    _system.SubtractRowGradient(r, w * w * error, savedGrad, soc);
+                    _system.SubtractRowGradient(r, w * w * error, rowGradient, soc);
                     any = true;
                 }
                 if (any)
@@ -189,11 +191,10 @@ internal sealed class FitRun
                     if (again.Converged && AllFinite(correction))
                     {
                         _system.Apply(trial, correction, corrected);
-                        _value.AsSpan().CopyTo(s.TrialValue); _grad.AsSpan().CopyTo(s.TrialGrad);
                         Evaluate(corrected);
                         double correctedMerit = Merit(phase);
                         if (correctedMerit < trialMerit) { (trial, corrected) = (corrected, trial); (s.Trial, s.Corrected) = (trial, corrected); trialMerit = correctedMerit; }
-                        else { s.TrialValue.AsSpan().CopyTo(_value); s.TrialGrad.AsSpan().CopyTo(_grad); Merit(phase); }
+                        else { Evaluate(trial); Merit(phase); } // re-evaluated rather than kept: a copy of all row gradients is 55 MB at 100 x 100
                     }
                 }
             }
@@ -214,7 +215,7 @@ internal sealed class FitRun
             }
             else
             {
-                savedValue.AsSpan().CopyTo(_value); savedGrad.AsSpan().CopyTo(_grad);
+                Evaluate(_x); // re-evaluated rather than restored from a copy of every row gradient (55 MB at 100 x 100)
                 Merit(phase);
                 damping *= 4;
                 if (phase == Optimality) _damping = damping;
@@ -258,13 +259,41 @@ internal sealed class FitRun
     private Scratch? _scratch;
 
     /// <summary>Work arrays of the steps, allocated once per run.</summary>
-    private sealed class Scratch(int unknowns, int coordinates, int rows, int gradients)
+    private sealed class Scratch(int unknowns, int coordinates, int rows, int savedGradients)
     {
         public readonly double[] Rhs = new double[unknowns], Step = new double[unknowns], Correction = new double[unknowns], Soc = new double[unknowns];
         public double[] Trial = new double[coordinates], Corrected = new double[coordinates];
-        public readonly double[] SavedValue = new double[rows], SavedWeight = new double[rows], TrialValue = new double[rows];
-        public readonly double[] SavedGrad = new double[gradients], TrialGrad = new double[gradients];
-        public double[]? Undamped;
+        public readonly double[] SavedValue = new double[rows], SavedWeight = new double[rows];
+        /// <summary>Gradients at x of the constraint rows with nonzero weight, packed; SavedAt gives each
+        /// row's offset. The second-order correction needs J(x) after x + d has been evaluated.</summary>
+        public double[] SavedGradient = new double[savedGradients];
+        public readonly int[] SavedAt = new int[rows];
+        public readonly double[] UndampedDiagonal = new double[unknowns];
+    }
+
+    /// <summary>Gradient entries of the equality rows (planarity, Kawasaki, developability): the usual
+    /// size of the packed saved gradients; active bounds grow it when needed.</summary>
+    private int EqualityGradientLength()
+    {
+        int length = 0;
+        for (int r = _rows.FirstConstraint; r < _rows.RowCount; r++)
+            if (_rows.Kind[r] is ResidualKind.Planarity or ResidualKind.Kawasaki or ResidualKind.Developability)
+                length += 3 * (_rows.Start[r + 1] - _rows.Start[r]);
+        return length;
+    }
+
+    private void SaveWeightedConstraintGradients(Scratch s)
+    {
+        int at = 0;
+        for (int r = _rows.FirstConstraint; r < _rows.RowCount; r++)
+        {
+            if (_weight[r] == 0) continue;
+            int first = 3 * _rows.Start[r], length = 3 * _rows.Start[r + 1] - first;
+            if (at + length > s.SavedGradient.Length) Array.Resize(ref s.SavedGradient, at + length + s.SavedGradient.Length / 4);
+            Array.Copy(_grad, first, s.SavedGradient, at, length);
+            s.SavedAt[r] = at;
+            at += length;
+        }
     }
 
     private static bool AllFinite(double[] v)

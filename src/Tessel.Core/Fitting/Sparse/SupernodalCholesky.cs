@@ -174,10 +174,10 @@ public sealed class SupernodalCholesky : ICholeskyFactor
 
             long mu = m - k;
             for (int c = 0; c < childCount[s]; c++) stackNow -= stackSizes.Pop();
-            stackNow += mu * mu;
-            stackSizes.Push(mu * mu);
+            stackNow += Packed(mu);
+            stackSizes.Push(Packed(mu));
             stackMax = Math.Max(stackMax, stackNow);
-            updateMax = Math.Max(updateMax, mu * mu);
+            updateMax = Math.Max(updateMax, Packed(mu));
             // Bordering: row i < k takes dots of lengths 0..i; rows below take 0..k-1; the Schur
             // complement takes one dot of length k per lower entry.
             superFlops[s] = (k - 1.0) * k * (k + 1.0) / 6 + mu * k * (k - 1.0) / 2 + mu * (mu + 1.0) / 2 * k;
@@ -218,7 +218,8 @@ public sealed class SupernodalCholesky : ICholeskyFactor
 
         // Two subtrees on two threads, each with its own stack; every supernode does the same arithmetic
         // in the same order as in the serial loop, so the factor is bit-identical.
-        var second = secondStack ??= new FrontStack(stackPeak, updatePeak, n, supernodes);
+        // Sized for its own subtree: at 100 x 100 cells a full-size second stack held 140 MB it never used.
+        var second = secondStack ??= NewRangeStack(splitLast + 1, tailFirst);
         second.Depth = 0; second.Top = 0;
         int rowB = -1; double pivotB = 0; bool okB = true;
         var other = Task.Run(() => okB = FactorRange(splitLast + 1, tailFirst, values, second, out rowB, out pivotB));
@@ -249,7 +250,7 @@ public sealed class SupernodalCholesky : ICholeskyFactor
             long block = factorStart[s];
             for (int t = 0; t < m; t++) st.LocalOf[superRows[r0 + t]] = t;
             Array.Clear(l, (int)block, m * k);
-            Array.Clear(st.Update, 0, mu * mu);
+            Array.Clear(st.Update, 0, (int)Packed(mu));
 
             // Assemble A's columns of this supernode.
             for (int j = f; j < f + k; j++)
@@ -267,7 +268,7 @@ public sealed class SupernodalCholesky : ICholeskyFactor
                 for (int x = 0; x < mc; x++)
                 {
                     int lx = st.LocalOf[superRows[rc + x]];
-                    long ux = u + (long)x * mc;
+                    long ux = u + (long)x * (x + 1) / 2;
                     if (lx < k)
                     {
                         for (int y = 0; y <= x; y++) l[block + (long)lx * k + st.LocalOf[superRows[rc + y]]] += st.Stack[ux + y];
@@ -275,7 +276,7 @@ public sealed class SupernodalCholesky : ICholeskyFactor
                     else
                     {
                         long rowL = block + (long)lx * k;
-                        int rowU = (lx - k) * mu;
+                        int rowU = (int)Packed(lx - k);
                         for (int y = 0; y <= x; y++)
                         {
                             int ly = st.LocalOf[superRows[rc + y]];
@@ -335,7 +336,7 @@ public sealed class SupernodalCholesky : ICholeskyFactor
             for (int i = 0; i < pairs; i += 2)
             {
                 long rowI0 = block + (long)(k + i) * k, rowI1 = rowI0 + k;
-                int u0 = i * mu, u1 = u0 + mu;
+                int u0 = (int)Packed(i), u1 = u0 + i + 1;
                 for (int j = 0; j <= i; j += 2)
                 {
                     long rowJ0 = block + (long)(k + j) * k;
@@ -349,17 +350,17 @@ public sealed class SupernodalCholesky : ICholeskyFactor
             for (int i = pairs; i < mu; i++)
             {
                 long rowI = block + (long)(k + i) * k;
-                int rowU = i * mu;
+                int rowU = (int)Packed(i);
                 for (int j = 0; j <= i; j++)
                     st.Update[rowU + j] -= DenseKernels.Dot(l, rowI, l, block + (long)(k + j) * k, k);
             }
             if (mu > 0)
             {
-                Array.Copy(st.Update, 0, st.Stack, st.Top, mu * mu);
+                Array.Copy(st.Update, 0, st.Stack, st.Top, Packed(mu));
                 st.Offset[st.Depth] = st.Top;
                 st.Owner[st.Depth] = s;
                 st.Depth++;
-                st.Top += (long)mu * mu;
+                st.Top += Packed(mu);
             }
         }
         failedRow = -1;
@@ -628,6 +629,29 @@ public sealed class SupernodalCholesky : ICholeskyFactor
         if (first < 0.2 * total || below - first < 0.2 * total) return (-1, -1);
         return (cut, r);
     }
+
+    /// <summary>A stack for supernodes [first, end), a whole subtree in postorder, factored from empty:
+    /// its peak of pending update matrices and its largest update matrix, replayed as the analysis did
+    /// for the whole tree.</summary>
+    private FrontStack NewRangeStack(int first, int end)
+    {
+        long now = 0, peak = 0, update = 0;
+        var sizes = new Stack<long>();
+        for (int s = first; s < end; s++)
+        {
+            long mu = superRowStart[s + 1] - superRowStart[s] - (superFirst[s + 1] - superFirst[s]);
+            for (int c = 0; c < childCount[s]; c++) now -= sizes.Pop();
+            now += Packed(mu);
+            sizes.Push(Packed(mu));
+            peak = Math.Max(peak, now);
+            update = Math.Max(update, Packed(mu));
+        }
+        return new FrontStack(peak, update, n, supernodes);
+    }
+
+    /// <summary>Entries of a lower triangle of this order: update matrices are stored packed, row by row
+    /// (only the lower triangle is ever formed or read; it halved the stack).</summary>
+    private static long Packed(long order) => order * (order + 1) / 2;
 
     /// <summary>Scratch of one thread of the numeric step: the stack of children's update matrices, the
     /// update matrix being formed and the row-to-front map.</summary>
