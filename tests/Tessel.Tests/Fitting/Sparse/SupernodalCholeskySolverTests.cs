@@ -48,14 +48,15 @@ public class SupernodalCholeskySolverTests
     public void FactorOfADenseMatrixIsOneSupernode()
     {
         // A full 5 x 5 SPD matrix: the elimination tree is a chain with equal-shrinking columns, so the
-        // fundamental supernode partition has one supernode of 5 x 5 = 25 stored entries.
+        // fundamental supernode partition has one supernode; its diagonal block is stored as a packed lower
+        // triangle, 5 * 6 / 2 = 15 entries (a square block would be 25).
         var t = new List<(int, int, double)>();
         for (int i = 0; i < 5; i++)
             for (int j = 0; j < 5; j++) t.Add((i, j, i == j ? 6.0 : 1.0 / (1 + i + j)));
         var a = CsrMatrix.FromTriplets(5, 5, t);
         var factor = SupernodalCholesky.Analyze(a);
         Assert.Equal(1, factor.SupernodeCount);
-        Assert.Equal(25, factor.FactorEntries);
+        Assert.Equal(15, factor.FactorEntries);
     }
 
     [Fact]
