@@ -2,8 +2,8 @@ using Tessel.Benchmarks;
 
 // Usage: dotnet run -c Release --project tests/Tessel.Benchmarks -- <verb> [options]
 // Verbs: solvers [--max-grid N]   sparse SPD solvers on Gauss-Newton edge-length systems
-//        fit [sizes] [-v]         Miura-to-saddle fit times and peak memory (see FitBenchmark.cs)
-//        factor [sizes]           one factorisation of the fit's own matrix by each direct solver
+//        fit [sizes] [cap=N] [-v] Miura-to-saddle fit times and peak memory (see FitBenchmark.cs)
+//        factor [sizes]           one factorisation of the fit's own matrix by each direct solver, then PCG
 var verb = args.Length > 0 ? args[0] : "";
 switch (verb)
 {
