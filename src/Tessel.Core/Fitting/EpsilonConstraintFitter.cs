@@ -26,6 +26,14 @@ public static class EpsilonConstraintFitter
         return result with { Spread = new StartSpread(0, [result.Objective], [result.Converged]) };
     }
 
+    /// <summary>Residuals and shape error of <paramref name="positions"/> (#V*3) against
+    /// <paramref name="target"/>, without any step: a fit result that moved nothing.</summary>
+    public static FitResult Measure(GeneratedPattern pattern, ITargetSurface target, FitSettings settings, double[] positions)
+    {
+        var rows = new FitRows(pattern, target, pattern.LayerOffset, settings);
+        return new FitRun(pattern, rows, settings, DefaultSolver(), (double[])positions.Clone()).Measure();
+    }
+
     /// <summary>The solver used when none is given.</summary>
     public static ISpdSolver DefaultSolver() => new DefaultFitSolver();
 
@@ -39,6 +47,13 @@ internal sealed class FitRun
     private const string Feasibility = "feasibility", Optimality = "epsilon-constraint", Projection = "projection";
     private const double FeasibilityPull = 1e-3;
     private const double HandOver = 1e-6;
+    /// <summary>Longest vertex move of one step, in mean edge lengths. Far from the constraint set the
+    /// Gauss-Newton step can be many edges long along weakly determined sheet-wide modes and is then
+    /// rejected over and over while the damping climbs; capping it in edge units keeps steps inside
+    /// the region where the linear model holds (a trust region measured in the mesh's own length).</summary>
+    private const double LongestMoveInEdges = 0.25;
+    /// <summary>A rejected step halves the cap; an accepted one doubles it back up to the longest.</summary>
+    private const double MoveCapFactor = 2;
 
     private readonly GeneratedPattern _pattern;
     private readonly FitRows _rows;
@@ -89,6 +104,7 @@ internal sealed class FitRun
         Evaluate(_x);
         double objective = Objective(out _), previousViolation = MaxViolation();
         stop = "iteration limit reached in phase 2";
+        double lastDecrease = double.NaN;
         while (_solves < budget - projectionReserve)
         {
             int roundBudget = Math.Min(10, budget - projectionReserve - _solves);
@@ -98,7 +114,8 @@ internal sealed class FitRun
             UpdateMultipliers();
             if (violation > 0.25 * previousViolation) _penalty = Math.Min(_penalty * 10, 1e12);
             double next = Objective(out _);
-            bool small = Math.Abs(objective - next) <= _s.RelativeObjectiveTolerance * Math.Max(Math.Abs(next), 1e-300);
+            lastDecrease = Math.Abs(objective - next) / Math.Max(Math.Abs(next), 1e-300);
+            bool small = lastDecrease <= _s.RelativeObjectiveTolerance;
             objective = next; previousViolation = violation;
             // The final projection removes what is left below HandOver (Newton converges quadratically there).
             if (violation <= HandOver && (small || stalled))
@@ -113,13 +130,26 @@ internal sealed class FitRun
         Minimise(Projection, budget - _solves, () => MaxViolation() <= 0.1 * tolerance, out _, initialDamping: 1e-10);
         Evaluate(_x);
         var residuals = Residuals();
-        bool converged = optimal && residuals.MaxConstraintViolation <= tolerance;
+        bool buildable = residuals.MaxConstraintViolation <= tolerance;
+        bool converged = optimal && buildable;
         if (optimal && !converged) stop = "constraints not within tolerance after projection";
         double total = Objective(out double fairness);
         var mesh = _pattern.Mesh.WithPositions((double[])_x.Clone());
         return new FitResult(mesh, _s.EpsilonDeg, converged, converged ? "converged: " + stop : stop, total, fairness, Shape(),
             residuals, _history, new SolverStatistics(_method, _solves, _linearIterations, _system.Unknowns, _system.Matrix.NonZeroCount, _solveSeconds, _clock.Elapsed.TotalSeconds),
-            new StartSpread(0, [total], [converged]));
+            new StartSpread(0, [total], [converged])) { Buildable = buildable, LastRelativeDecrease = lastDecrease };
+    }
+
+    /// <summary>The result at the start positions, with no step taken.</summary>
+    public FitResult Measure()
+    {
+        Evaluate(_x);
+        var residuals = Residuals();
+        bool buildable = residuals.MaxConstraintViolation <= _s.ConstraintTolerance;
+        double total = Objective(out double fairness);
+        return new FitResult(_pattern.Mesh.WithPositions((double[])_x.Clone()), _s.EpsilonDeg, false, "measured only", total, fairness, Shape(),
+            residuals, _history, new SolverStatistics(_method, 0, 0, _system.Unknowns, _system.Matrix.NonZeroCount, 0, 0),
+            new StartSpread(0, [total], [false])) { Buildable = buildable };
     }
 
     /// <summary>Levenberg-Marquardt on the phase's merit function until <paramref name="done"/> holds,
@@ -131,6 +161,7 @@ internal sealed class FitRun
         double damping = phase == Optimality ? _damping : initialDamping;
         int used = 0, rejectedInRow = 0;
         int n = _system.Unknowns;
+        double moveCap = LongestMoveInEdges * _rows.Scale;
         // Scratch owned by the run: large sheets would otherwise allocate (and collect) hundreds of MB per step.
         var s = _scratch ??= new Scratch(n, _x.Length, _rows.RowCount, EqualityGradientLength());
         double[] rhs = s.Rhs, step = s.Step, correction = s.Correction, soc = s.Soc;
@@ -160,6 +191,7 @@ internal sealed class FitRun
             Array.Clear(step);
             var stats = TimedSolve(rhs, step, again: false);
             used++;
+            CapMove(step, moveCap);
             _system.Apply(_x, step, trial);
             _value.AsSpan().CopyTo(savedValue); _weight.AsSpan().CopyTo(savedWeight); SaveWeightedConstraintGradients(s);
             double trialMerit = double.PositiveInfinity;
@@ -206,6 +238,7 @@ internal sealed class FitRun
                 double decrease = (merit - trialMerit) / Math.Max(merit, 1e-300);
                 merit = trialMerit;
                 damping = Math.Max(damping / 3, 1e-12);
+                moveCap = Math.Min(moveCap * MoveCapFactor, LongestMoveInEdges * _rows.Scale);
                 rejectedInRow = 0;
                 assembled = false;
                 Record(phase, true);
@@ -218,11 +251,25 @@ internal sealed class FitRun
                 Evaluate(_x); // re-evaluated rather than restored from a copy of every row gradient (55 MB at 100 x 100)
                 Merit(phase);
                 damping *= 4;
+                moveCap /= MoveCapFactor;
                 if (phase == Optimality) _damping = damping;
                 Record(phase, false);
                 if (++rejectedInRow >= 12 || damping > 1e12) { stalled = true; return; }
             }
         }
+    }
+
+    /// <summary>Scales <paramref name="step"/> (3 per free vertex) so that no vertex moves farther than
+    /// <paramref name="cap"/> metres.</summary>
+    private static void CapMove(double[] step, double cap)
+    {
+        double longest = 0;
+        for (int a = 0; a + 2 < step.Length; a += 3)
+            longest = Math.Max(longest, step[a] * step[a] + step[a + 1] * step[a + 1] + step[a + 2] * step[a + 2]);
+        longest = Math.Sqrt(longest);
+        if (!(longest > cap)) return;
+        double scale = cap / longest;
+        for (int k = 0; k < step.Length; k++) step[k] *= scale;
     }
 
     private SolveStats TimedSolve(double[] rhs, double[] x, bool again)

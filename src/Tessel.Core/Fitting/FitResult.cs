@@ -53,8 +53,9 @@ public sealed record StartSpread(int BestStart, double[] Objectives, bool[] Conv
     public double Range => Worst - Best;
 }
 
-/// <summary>Outcome of a fit. <see cref="Converged"/> is true only when every constraint is within
-/// the tolerance and phase 2 stopped on its objective criterion, not on the iteration cap.</summary>
+/// <summary>Outcome of a fit. <see cref="Buildable"/> is true when every constraint and bound is within
+/// the tolerance: the pattern folds. <see cref="Converged"/> (finished) additionally needs phase 2 to have
+/// stopped on its objective criterion, not on the iteration cap: the shape could not improve further.</summary>
 public sealed record FitResult(
     CreaseMesh Mesh,
     double EpsilonDeg,
@@ -66,4 +67,16 @@ public sealed record FitResult(
     FitResiduals Residuals,
     IReadOnlyList<FitIteration> History,
     SolverStatistics Solver,
-    StartSpread Spread);
+    StartSpread Spread)
+{
+    /// <summary>Every constraint and bound within the tolerance: the pattern folds from a flat sheet.</summary>
+    public bool Buildable { get; init; }
+
+    /// <summary>Relative decrease of the objective over the last round of phase 2 (NaN when no round ran):
+    /// how much the shape was still improving when the fit stopped.</summary>
+    public double LastRelativeDecrease { get; init; }
+
+    /// <summary>What the fit changed on its way to a buildable result (continuation stages, restarts), in
+    /// plain words; empty when the first attempt succeeded.</summary>
+    public IReadOnlyList<string> Adjustments { get; init; } = [];
+}

@@ -80,7 +80,8 @@ internal sealed class FitRows
         {
             int a = mesh.EdgeVertices[2 * e], b = mesh.EdgeVertices[2 * e + 1];
             double len = (mesh.Vertex(b) - mesh.Vertex(a)).Length;
-            Add(ResidualKind.EdgeLengthBound, s.MinEdgeLengthFraction * len / Scale, double.PositiveInfinity, e, a, b);
+            double shortest = Math.Max(s.MinEdgeLengthFraction * len, Math.Min(s.MinEdgeLengthM, len));
+            Add(ResidualKind.EdgeLengthBound, shortest / Scale, double.PositiveInfinity, e, a, b);
         }
         if (cons.HasFlag(FamilyConstraints.FoldSigns))
             for (int e = 0; e < mesh.EdgeCount; e++)

@@ -18,6 +18,9 @@ public sealed record FitSettings
     public double MaxFoldAngleDeg { get; init; } = 175;
     /// <summary>Every edge stays at least this fraction of its draped length.</summary>
     public double MinEdgeLengthFraction { get; init; } = 0.25;
+    /// <summary>Shortest crease allowed, metres at full scale (the job's minimum crease on the model
+    /// times the scale); an edge already shorter in the drape may not shrink below its draped length.</summary>
+    public double MinEdgeLengthM { get; init; }
     /// <summary>Largest allowed constraint residual at the end (radians, or scaled planarity): the
     /// converged flag needs every constraint within it.</summary>
     public double ConstraintTolerance { get; init; } = 1e-10;

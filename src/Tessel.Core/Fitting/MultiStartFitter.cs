@@ -8,7 +8,7 @@ namespace Tessel.Core.Fitting;
 /// <summary>Runs <see cref="FitSettings.Starts"/> fits in parallel from seeded perturbations of the
 /// interior vertices along the target normal and keeps the best. Deterministic: start k draws from a
 /// generator seeded by (Seed, k) alone, each start owns all its state, and the winner is the lowest
-/// objective among converged starts (then among all), ties broken by the lower start index. A pattern's
+/// objective among buildable starts, finished ones first (then among all), ties broken by the lower start index. A pattern's
 /// own <see cref="GeneratedPattern.InitialPenalty"/> replaces the settings' one.</summary>
 public static class MultiStartFitter
 {
@@ -30,7 +30,7 @@ public static class MultiStartFitter
         for (int k = 1; k < starts; k++)
         {
             var a = results[k]; var b = results[best];
-            if (a.Converged != b.Converged ? a.Converged : a.Objective < b.Objective) best = k;
+            if (a.Buildable != b.Buildable ? a.Buildable : a.Converged != b.Converged ? a.Converged : a.Objective < b.Objective) best = k;
         }
         var spread = new StartSpread(best, results.Select(r => r.Objective).ToArray(), results.Select(r => r.Converged).ToArray());
         return results[best] with { Spread = spread };

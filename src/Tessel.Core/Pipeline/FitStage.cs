@@ -25,16 +25,23 @@ public static class FitStage
         MaxSectorAngleDeg = job.Fitting.Bounds.MaxSectorAngleDeg,
         MinFoldAngleDeg = Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0),
         MaxFoldAngleDeg = job.Fitting.Bounds.MaxFoldAngleDeg,
+        MinEdgeLengthM = job.Fitting.Bounds.MinEdgeLengthMm / 1000 * job.Fabrication.Scale,
     };
 
-    public static FitStageResult Run(Job job, GeneratedPattern pattern, ITargetSurface target, ProgressReporter progress)
+    /// <param name="drapeOn">Drapes the pattern on another surface, for the fit's continuation when the
+    /// fit from the drape is not buildable (<see cref="TessellationStageResult.DrapeOn"/>); null: no continuation.</param>
+    public static FitStageResult Run(Job job, GeneratedPattern pattern, ITargetSurface target, ProgressReporter progress,
+        Func<ITargetSurface, GeneratedPattern>? drapeOn = null)
     {
         var settings = SettingsFor(job);
         progress.Stage("fit", $"{settings.Starts} start(s), epsilon {settings.EpsilonDeg:0.###} deg, {pattern.Mesh.VertexCount * 3} unknowns");
+        int shortInDrape = ShortEdges(pattern.Mesh, settings.MinEdgeLengthM);
+        if (shortInDrape > 0)
+            progress.Step($"{shortInDrape} crease(s) are already shorter than fitting.bounds.minEdgeLengthMm in the drape; they may not shrink further (fewer cells or a larger model scale lengthens them)");
         FitResult fit;
         try
         {
-            fit = MultiStartFitter.Fit(pattern, target, settings, EpsilonConstraintFitter.DefaultSolver);
+            fit = ContinuationFitter.Fit(pattern, target, settings, drapeOn, EpsilonConstraintFitter.DefaultSolver, progress.Step);
         }
         catch (Exception e) when (Breakdown(e) is { } cause)
         {
@@ -42,7 +49,7 @@ public static class FitStage
         }
         if (!fit.Mesh.Positions.All(double.IsFinite))
             throw new FitBreakdownError("the fit produced non-finite vertex positions; check the target's size and units and the tessellation's cell size", new ArithmeticException());
-        progress.Step($"{(fit.Converged ? "converged" : "NOT converged")} ({fit.StopReason}) after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, max constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
+        progress.Step($"{Verdict(fit)} after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, largest constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
 
         var front = new List<ParetoPoint>();
         var sweep = job.Fitting.EpsilonSweepDeg;
@@ -63,6 +70,21 @@ public static class FitStage
         }
         return new FitStageResult(fit, front);
     }
+
+    private static int ShortEdges(CreaseMesh mesh, double minimum)
+    {
+        int count = 0;
+        for (int e = 0; e < mesh.EdgeCount; e++)
+            if ((mesh.Vertex(mesh.EdgeVertices[2 * e + 1]) - mesh.Vertex(mesh.EdgeVertices[2 * e])).Length < minimum) count++;
+        return count;
+    }
+
+    /// <summary>One phrase: buildable and finished, buildable with room to improve, or not buildable.</summary>
+    public static string Verdict(FitResult fit) =>
+        !fit.Buildable ? $"NOT buildable ({fit.StopReason})"
+        : fit.Converged ? "buildable and finished"
+        : double.IsNaN(fit.LastRelativeDecrease) ? $"buildable; the shape could still improve (the step limit ended the fit before its shape phase finished a round; {fit.History.Count} steps used)"
+        : $"buildable; the shape could still improve (its last round still lowered the objective by {fit.LastRelativeDecrease * 100:0.##} %; {fit.History.Count} steps used)";
 
     /// <summary>The numerical failure inside <paramref name="e"/> (parallel starts wrap it), or null.</summary>
     private static Exception? Breakdown(Exception e) => e switch

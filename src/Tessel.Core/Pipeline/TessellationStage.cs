@@ -10,7 +10,12 @@ namespace Tessel.Core.Pipeline;
 /// <param name="Pattern">Draped initial state with the family's constraints; null when the family
 /// cannot be built by this version (see <paramref name="Unavailable"/>).</param>
 /// <param name="Advice">Plain-words verdict on pairing this family with this target.</param>
-public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable, FamilyAdvice Advice);
+public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable, FamilyAdvice Advice)
+{
+    /// <summary>Drapes the same family with the same parameters on another surface (the fit's continuation
+    /// starts from the target's best-fit plane); null when there is no pattern.</summary>
+    public Func<ITargetSurface, GeneratedPattern>? DrapeOn { get; init; }
+}
 
 /// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
 public static class TessellationStage
@@ -37,7 +42,7 @@ public static class TessellationStage
         {
             var pattern = FamilyGenerators.Generate(spec.Family, target, p);
             progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
-            return new TessellationStageResult(pattern, null, advice);
+            return new TessellationStageResult(pattern, null, advice) { DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)
         {

@@ -22,7 +22,7 @@ public static class FamilyGenerators
             "miura" => MiuraGenerator.Generate(target, Miura(p)),
             "reverse-curvature" => ReverseCurvatureGenerator.Generate(target, new ReverseCurvatureParameters(Miura(p), p.Grading)),
             "yoshimura" => YoshimuraGenerator.Generate(target, new YoshimuraParameters(p.CellsY, p.CellsX, p.CellSize)),
-            "free-triangulated" => FreeTriangulatedGenerator.Generate(target, new FreeTriangulatedParameters(p.CellsX, p.CellsY, p.CellSize, p.FlatDiagonalShare)),
+            "free-triangulated" => FreeTriangulatedGenerator.Generate(target, new FreeTriangulatedParameters(p.CellsX, p.CellsY, p.CellSize, p.FlatDiagonalShare) { CorrugatedStart = p.BuildableStart && p.FlatDiagonalShare == 0 }),
             "waterbomb" => WaterbombGenerator.Generate(target, new WaterbombParameters(p.CellsX, p.CellsY, p.CellSize, p.FoldDepth)),
             _ => throw new ArgumentException($"unknown family '{family}'; known families: {string.Join(", ", Names)}", nameof(family)),
         };

@@ -18,4 +18,9 @@ public sealed record FamilyParameters(
     double FoldDepth = 0.05,
     double OrientationDeg = 0,
     double FlatDiagonalShare = 0,
-    double Grading = 0.3);
+    double Grading = 0.3)
+{
+    /// <summary>Ask the generator for a start that is exactly buildable on a plane where the family has
+    /// one that differs from its usual drape (the fit's continuation starts from it).</summary>
+    public bool BuildableStart { get; init; }
+}

@@ -64,16 +64,19 @@ public static class BuildRunner
             return;
         }
         var sheetSettings = SheetStage.SettingsFor(job);
-        var fit = FitStage.Run(job, tessellation.Pattern, target, progress);
+        var fit = FitStage.Run(job, tessellation.Pattern, target, progress, tessellation.DrapeOn);
         ModelOutputs.AddFit(output, job, tessellation, fit);
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
-        if (!fit.Fit.Converged)
+        warnings.AddRange(fit.Fit.Adjustments);
+        if (fit.Fit.Buildable && !fit.Fit.Converged)
+            warnings.Add($"the fit is buildable but not finished: {FitStage.Verdict(fit.Fit)}; raise fitting.maxIterations for a closer shape");
+        if (!fit.Fit.Buildable)
         {
-            string why = $"the fit did not converge ({fit.Fit.StopReason}; largest constraint residual {fit.Fit.Residuals.MaxConstraintViolation:0.##E+0})";
+            string why = $"the fit is not buildable ({fit.Fit.StopReason}; largest constraint residual {fit.Fit.Residuals.MaxConstraintViolation:0.##E+0})";
             if (!job.Fitting.AcceptUnconverged)
             {
-                output.Problem = why + "; no sheets were written. Raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg, or pass --accept-unconverged";
+                output.Problem = why + "; no sheets were written. Try more cells, a smaller tessellation.foldDepth, another family (tessel catalog families), or pass --accept-unconverged";
                 return;
             }
             warnings.Add(why + "; outputs written because the job accepts an unconverged fit");

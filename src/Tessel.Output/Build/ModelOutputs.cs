@@ -29,6 +29,10 @@ public static class ModelOutputs
         output.AddFigure("tessellation", "edges", (long)mesh.EdgeCount);
         output.AddFigure("tessellation", "foldDepthM", tessellation.Pattern!.LayerOffset);
         output.AddFigure("fit", "converged", fit.Converged);
+        output.AddFigure("fit", "buildable", fit.Buildable);
+        output.AddFigure("fit", "finished", fit.Converged);
+        if (double.IsFinite(fit.LastRelativeDecrease)) output.AddFigure("fit", "lastRelativeDecrease", fit.LastRelativeDecrease);
+        for (int i = 0; i < fit.Adjustments.Count; i++) output.AddFigure("fit", $"adjustment[{i}]", fit.Adjustments[i]);
         output.AddFigure("fit", "stopReason", fit.StopReason);
         output.AddFigure("fit", "epsilonDeg", fit.EpsilonDeg);
         output.AddFigure("fit", "steps", (long)fit.History.Count);

@@ -87,16 +87,16 @@ public static class FreeTriangulatedGenerator
                 throw new ArgumentException($"the net reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller footprint", nameof(target));
             new Vec3(x, y, z).Write(pos, map[g]);
             int gi = g % nx, gj = g / nx;
-            bool corrugate = p.FlatDiagonalShare > 0;
+            bool corrugate = p.FlatDiagonalShare > 0 || p.CorrugatedStart;
             offsets[map[g]] = p.Crumple * Math.Min(dx, dy) * (corrugate ? CorrugationFactor * (gj % 2 == 1 ? 1 : -1) : CrumpleProfile(gi, gj));
-            shifts[map[g]] = corrugate && gi % 2 == 1 ? ZigZagShift * dy : 0;
+            shifts[map[g]] = corrugate && !p.CorrugatedStart && gi % 2 == 1 ? ZigZagShift * dy : 0;
             layers[map[g]] = VertexLayer.Top;
         }
         var compact = faces.Select(f => f.Select(v => map[v]).ToArray()).ToArray();
         var boundary = new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat).BoundaryVertices();
         for (int v = 0; v < n; v++)
         {
-            if (boundary[v]) continue;
+            if (boundary[v] && !p.CorrugatedStart) continue;
             var q = Vec3.Read(pos, v);
             if (shifts[v] != 0)
             {

@@ -20,4 +20,11 @@ public sealed record FreeTriangulatedParameters(
     int? CellsY = null,
     double? CellSize = null,
     double FlatDiagonalShare = 0,
-    double Crumple = 0.1);
+    double Crumple = 0.1)
+{
+    /// <summary>Start as straight corrugated rows (every vertex, border included, alternately above and
+    /// below the surface, no zig-zag): on a plane every interior vertex then lies on one straight fold
+    /// between two planar strips, so the start is exactly developable with a developability gradient
+    /// that does not vanish (the fit's continuation starts there).</summary>
+    public bool CorrugatedStart { get; init; }
+}

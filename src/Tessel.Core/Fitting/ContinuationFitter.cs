@@ -1,0 +1,111 @@
+using System.Globalization;
+using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation;
+
+namespace Tessel.Core.Fitting;
+
+/// <summary>The fit the pipeline runs: the multi-start fit from the drape, and when that ends unbuildable,
+/// a continuation that keeps every accepted iterate buildable. It drapes the same pattern on the
+/// target's best-fit plane (where a regular pattern is buildable or nearly so), lands it on the
+/// constraints there, and then moves the target from that plane toward the real one in stages
+/// (<see cref="BlendedSurface"/>), refitting and restoring the constraints at each stage. A stage that
+/// does not end buildable is retried with half the step; the last buildable stage is kept, so the result
+/// is buildable whenever the plane stage is, even if it could not follow the target all the way.</summary>
+/// <remarks>Continuation in the data of a nonlinear problem: Allgower &amp; Georg, Introduction to
+/// Numerical Continuation Methods, SIAM 2003, chapter 1 (embedding a hard problem in a family that starts
+/// at an easy one) with step-length control by success or failure of the corrector.</remarks>
+public static class ContinuationFitter
+{
+    /// <summary>First step in the blend share s.</summary>
+    private const double FirstStep = 0.25;
+    /// <summary>A failed stage halves the step; below this the continuation gives up (six halvings).</summary>
+    private const double SmallestStep = 1.0 / 256;
+    /// <summary>A successful stage lengthens the next step by this factor.</summary>
+    private const double StepGrowth = 1.5;
+    /// <summary>Iteration cap of one stage as a share of the job's cap: a stage starts buildable and near
+    /// its target, so it needs far fewer steps than a fit from the drape.</summary>
+    private const double StageShareOfIterations = 0.25;
+
+    /// <param name="drapeOn">Drapes the job's pattern (same family and parameters) on another surface;
+    /// null disables the continuation.</param>
+    /// <param name="report">Receives one plain line per stage; may be null.</param>
+    public static FitResult Fit(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
+        Func<ITargetSurface, GeneratedPattern>? drapeOn, Func<ISpdSolver>? solverFactory = null, Action<string>? report = null)
+    {
+        var direct = MultiStartFitter.Fit(pattern, target, settings, solverFactory);
+        if (direct.Buildable || drapeOn is null) return direct;
+        report?.Invoke($"the fit from the drape is not buildable (largest residual {direct.Residuals.MaxConstraintViolation.ToString("0.##E+0", CultureInfo.InvariantCulture)}); continuing from the best-fit plane");
+        var continued = Continue(pattern, target, settings.For(pattern), drapeOn, solverFactory ?? EpsilonConstraintFitter.DefaultSolver, report);
+        if (continued is null || !continued.Buildable) return direct;
+        return continued with
+        {
+            History = [.. direct.History, .. continued.History],
+            Spread = direct.Spread,
+        };
+    }
+
+    /// <summary>The continuation alone; null when the pattern cannot be draped on the plane with the
+    /// same topology, or the plane stage itself is not buildable.</summary>
+    public static FitResult? Continue(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
+        Func<ITargetSurface, GeneratedPattern> drapeOn, Func<ISpdSolver> solverFactory, Action<string>? report = null)
+    {
+        var plane = BlendedSurface.BestFitPlane(target);
+        GeneratedPattern flat;
+        try { flat = drapeOn(new BlendedSurface(target, plane, 0)); }
+        catch (ArgumentException) { return null; }
+        if (!SameTopology(flat.Mesh, pattern.Mesh)) return null;
+
+        var adjustments = new List<string>();
+        var stageSettings = settings with { Starts = 1, MaxIterations = Math.Max(30, (int)(settings.MaxIterations * StageShareOfIterations)) };
+        var solver = solverFactory();
+        var history = new List<FitIteration>();
+        // A start that is buildable as draped is kept as it is: fitting it to the plane would pull it
+        // toward the flat sheet, where the developability residual has no gradient.
+        var landed = EpsilonConstraintFitter.Measure(flat, new BlendedSurface(target, plane, 0), settings, flat.Mesh.Positions);
+        if (!landed.Buildable)
+        {
+            landed = EpsilonConstraintFitter.Fit(flat, new BlendedSurface(target, plane, 0), stageSettings, solver);
+            history.AddRange(landed.History);
+        }
+        if (!landed.Buildable) { report?.Invoke("the pattern could not be made buildable even on the best-fit plane"); return null; }
+
+        double share = 0, step = FirstStep;
+        var last = landed;
+        while (share < 1 && step >= SmallestStep)
+        {
+            double next = Math.Min(1, share + step);
+            bool final = next == 1;
+            var stage = EpsilonConstraintFitter.Fit(flat, final ? target : new BlendedSurface(target, plane, next),
+                final ? settings with { Starts = 1 } : stageSettings, solver, last.Mesh.Positions);
+            history.AddRange(stage.History);
+            if (stage.Buildable)
+            {
+                share = next; last = stage;
+                step = Math.Min(step * StepGrowth, 1 - share);
+                report?.Invoke(FormattableString.Invariant($"continuation: {share * 100:0.#} % of the way to the target, buildable, shape RMS {stage.Shape.Rms * 1000:0.##} mm"));
+            }
+            else
+            {
+                step /= 2;
+                report?.Invoke(FormattableString.Invariant($"continuation: the stage at {next * 100:0.#} % did not stay buildable; halving the step"));
+            }
+        }
+        if (share < 1)
+        {
+            // Buildable but short of the target: the shape error is measured against the real target.
+            adjustments.Add(FormattableString.Invariant($"the pattern follows the target only {share * 100:0.#} % of the way from its best-fit plane (the fit could not stay buildable beyond that)"));
+            last = EpsilonConstraintFitter.Measure(flat, target, settings, last.Mesh.Positions) with { StopReason = last.StopReason, Solver = last.Solver };
+        }
+        adjustments.Insert(0, FormattableString.Invariant($"the fit from the drape was not buildable; it was refitted by continuation from the target's best-fit plane in {history.Count} steps"));
+        return last with { History = history, Adjustments = adjustments, Converged = last.Converged && share == 1 };
+    }
+
+    private static bool SameTopology(Tessellation.CreaseMesh a, Tessellation.CreaseMesh b)
+    {
+        if (a.VertexCount != b.VertexCount || a.FaceCount != b.FaceCount || a.EdgeCount != b.EdgeCount) return false;
+        for (int f = 0; f < a.FaceCount; f++)
+            if (!a.Faces[f].AsSpan().SequenceEqual(b.Faces[f])) return false;
+        return true;
+    }
+}
