@@ -113,7 +113,7 @@ public static class RobustnessBenchmark
                 Console.WriteLine($"  {h.Index,4} {h.Phase,-20} obj {h.Objective:E3} rms {h.ShapeRms:E3} P {h.MaxPlanarity:E2} K {h.MaxKawasaki:E2} D {h.MaxDevelopabilityExcess:E2} B {h.MaxBoundViolation:E2} {(h.Accepted ? "" : "rej")}");
         bool buildable = fit.Residuals.MaxConstraintViolation <= job.Fitting.Tolerance;
         return new Outcome(name, target.Name, family, cells, seed, buildable ? "buildable" : "unbuildable", fit.Converged, clock.Elapsed.TotalSeconds,
-            fit.Shape.Rms * 1e3, fit.Residuals.MaxConstraintViolation, fit.History.Count, fit.StopReason);
+            fit.Shape.Rms * 1e3, fit.Residuals.MaxConstraintViolation, fit.History.Count, fit.StopReason + (fit.Adjustments.Count > 0 ? "; " + string.Join("; ", fit.Adjustments) : ""));
     }
 
     private static Outcome Build(TargetCase target, string family, int cells, int seed, string assets)

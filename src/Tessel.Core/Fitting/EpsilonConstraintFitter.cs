@@ -191,7 +191,7 @@ internal sealed class FitRun
             Array.Clear(step);
             var stats = TimedSolve(rhs, step, again: false);
             used++;
-            CapMove(step, moveCap);
+            if (phase != Optimality) CapMove(step, moveCap);
             _system.Apply(_x, step, trial);
             _value.AsSpan().CopyTo(savedValue); _weight.AsSpan().CopyTo(savedWeight); SaveWeightedConstraintGradients(s);
             double trialMerit = double.PositiveInfinity;
