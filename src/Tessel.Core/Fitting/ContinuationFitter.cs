@@ -40,10 +40,25 @@ public static class ContinuationFitter
         var fit = MultiStartFitter.Fit(pattern, target, loose, solverFactory);
         if (!fit.Buildable && drapeOn is not null)
         {
-            report?.Invoke($"the fit from the drape is not buildable (largest residual {fit.Residuals.MaxConstraintViolation.ToString("0.##E+0", CultureInfo.InvariantCulture)}); continuing from the best-fit plane");
+            report?.Invoke($"the fit from the drape is not buildable (largest residual {fit.Residuals.MaxConstraintViolation.ToString("0.##E+0", CultureInfo.InvariantCulture)}); trying a continuation from the best-fit plane");
             var continued = Continue(pattern, target, loose.For(pattern), drapeOn, solverFactory ?? EpsilonConstraintFitter.DefaultSolver, report);
             if (continued is { Buildable: true })
                 fit = continued with { History = [.. fit.History, .. continued.History], Spread = fit.Spread };
+        }
+        if (!fit.Buildable && loose.StartPerturbation > 0)
+        {
+            // No continuation (the family has no buildable state on a plane) or it failed: the unperturbed
+            // drape with a doubled step budget, the restart that needs no other geometry.
+            report?.Invoke("restarting from the unperturbed drape with twice the steps");
+            var restart = EpsilonConstraintFitter.Fit(pattern, target, loose.For(pattern) with { StartPerturbation = 0, MaxIterations = 2 * loose.MaxIterations, Starts = 1 },
+                (solverFactory ?? EpsilonConstraintFitter.DefaultSolver)());
+            if (restart.Buildable)
+                fit = restart with
+                {
+                    History = [.. fit.History, .. restart.History],
+                    Spread = fit.Spread,
+                    Adjustments = ["the fit from the perturbed start was not buildable; it was restarted from the unperturbed drape with twice the steps"],
+                };
         }
         return fit.Buildable && settings.MinEdgeLengthM > 0
             ? HoldShortestCrease(pattern, target, settings.For(pattern), fit, solverFactory ?? EpsilonConstraintFitter.DefaultSolver, report)
@@ -96,8 +111,8 @@ public static class ContinuationFitter
         var plane = BlendedSurface.BestFitPlane(target);
         GeneratedPattern flat;
         try { flat = drapeOn(new BlendedSurface(target, plane, 0)); }
-        catch (ArgumentException) { return null; }
-        if (!SameTopology(flat.Mesh, pattern.Mesh)) return null;
+        catch (ArgumentException) { report?.Invoke("the family has no pattern on a plane to continue from"); return null; }
+        if (!SameTopology(flat.Mesh, pattern.Mesh)) { report?.Invoke("the pattern on the plane differs from the drape; no continuation"); return null; }
 
         var adjustments = new List<string>();
         var stageSettings = settings with { Starts = 1, MaxIterations = Math.Max(30, (int)(settings.MaxIterations * StageShareOfIterations)) };
