@@ -26,6 +26,11 @@ public static class ContinuationFitter
     /// <summary>Iteration cap of one stage as a share of the job's cap: a stage starts buildable and near
     /// its target, so it needs far fewer steps than a fit from the drape.</summary>
     private const double StageShareOfIterations = 0.25;
+    /// <summary>Starting augmented-Lagrangian penalty of every stage. A stage starts buildable, so a stiff
+    /// penalty only freezes it there: measured on a 12 x 12 Miura saddle, stages at the default 1e6 ended
+    /// 16, 51, 106 and 181 mm RMS from their targets at 12, 31, 59 and 100 % (the pattern barely bent),
+    /// stages at 1e3 0.2, 2 and 11 mm at 25, 44 and 58 %; the multiplier updates still land each stage.</summary>
+    private const double StagePenalty = 1e3;
 
     /// <param name="drapeOn">Drapes the job's pattern (same family and parameters) on another surface;
     /// null disables the continuation.</param>
@@ -115,7 +120,9 @@ public static class ContinuationFitter
         if (!SameTopology(flat.Mesh, pattern.Mesh)) { report?.Invoke("the pattern on the plane differs from the drape; no continuation"); return null; }
 
         var adjustments = new List<string>();
-        var stageSettings = settings with { Starts = 1, MaxIterations = Math.Max(30, (int)(settings.MaxIterations * StageShareOfIterations)) };
+        double penalty = Math.Min(settings.InitialPenalty, StagePenalty);
+        var stageSettings = settings with { Starts = 1, InitialPenalty = penalty, MaxIterations = Math.Max(30, (int)(settings.MaxIterations * StageShareOfIterations)) };
+        var finalSettings = settings with { Starts = 1, InitialPenalty = penalty };
         var solver = solverFactory();
         var history = new List<FitIteration>();
         // A start that is buildable as draped is kept as it is: fitting it to the plane would pull it
@@ -135,7 +142,7 @@ public static class ContinuationFitter
             double next = Math.Min(1, share + step);
             bool final = next == 1;
             var stage = EpsilonConstraintFitter.Fit(flat, final ? target : new BlendedSurface(target, plane, next),
-                final ? settings with { Starts = 1 } : stageSettings, solver, last.Mesh.Positions);
+                final ? finalSettings : stageSettings, solver, last.Mesh.Positions);
             history.AddRange(stage.History);
             if (stage.Buildable)
             {
