@@ -20,7 +20,10 @@ public static partial class JobLoader
     /// <exception cref="JobError">The file is missing, unreadable, malformed or invalid.</exception>
     public static Job Load(string path)
     {
+        if (string.IsNullOrWhiteSpace(path)) throw new JobError("job", "no job file given (the path is empty); name a job file, e.g. tessel build patterns/saddle-canopy.json");
         string text;
+        if (!Directory.Exists(path) && InputFile.KindOf(path) is { } kind && kind != "regular file")
+            throw new JobError(path, $"is a {kind}, not a job file; give the path of the job file itself");
         try { text = ReadBounded(path); }
         catch (FileNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
         catch (DirectoryNotFoundException) { throw new JobError(path, "job file not found; check the path"); }

@@ -84,7 +84,7 @@ public static class TargetFactory
     {
         if (decode is null) throw new JobError("target.image", "height maps need an image reader, which this front end does not provide");
         string path = Resolve(baseDirectory, spec.Image!);
-        if (!File.Exists(path)) throw new JobError("target.image", $"image file not found: {path}");
+        InputFile.RequireRegular(path, "target.image", "image file", InputFile.MaxImageBytes);
         var img = decode(path);
         if (img.Width < 2 || img.Height < 2) throw new JobError("target.image", $"the image must be at least 2 x 2 pixels (got {img.Width} x {img.Height})");
         double w = s * spec.ImageWidth!.Value, d = s * spec.ImageDepth!.Value;
@@ -96,7 +96,7 @@ public static class TargetFactory
     {
         string path = Resolve(baseDirectory, spec.Mesh!);
         byte[] bytes;
-        try { bytes = File.ReadAllBytes(path); }
+        try { bytes = InputFile.ReadBounded(path, "target.mesh", "mesh file", InputFile.MaxMeshBytes); }
         catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
         { throw new JobError("target.mesh", $"mesh file not found: {path}"); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)
