@@ -175,6 +175,8 @@ internal static class Commands
             var target = TargetFactory.Build(loaded.Target, loaded.BaseDirectory, HeightMapImage.Decode);
             var f = target.Footprint;
             stdout.WriteLine($"OK {loaded.Name}: {target.Description}; footprint {f.Width:0.###} x {f.Depth:0.###} m; family {loaded.Tessellation.Family}");
+            var sheet = loaded.Fabrication.Sheet;
+            if (loaded.Outputs.Png && SheetLimits.PngNote(sheet.WidthMm, sheet.HeightMm) is { } note) stdout.WriteLine($"note: {note}");
             return ExitCodes.Ok;
         });
         return cmd;

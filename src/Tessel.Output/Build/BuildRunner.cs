@@ -63,6 +63,11 @@ public static class BuildRunner
             output.AddFigure("tessellation", "note", tessellation.Unavailable!);
             return;
         }
+        // The size is known exactly now (a mesh target without a footprint gets its cell counts only here).
+        double raster = job.Outputs.Png ? SheetLimits.PngRasterBytes(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) : 0;
+        if (MemoryEstimate.ProblemForPattern(job.Tessellation.Family, tessellation.Pattern.Mesh.VertexCount, raster) is { } tooBig)
+            throw new JobError(job.Tessellation.CellSize is null ? "tessellation.cellsX" : "tessellation.cellSize",
+                tooBig + "; use fewer cells (tessellation.cellsX and tessellation.cellsY) or a larger tessellation.cellSize");
         var sheetSettings = SheetStage.SettingsFor(job);
         var fit = FitStage.Run(job, tessellation.Pattern, target, progress);
         ModelOutputs.AddFit(output, job, tessellation, fit);
@@ -98,6 +103,10 @@ public static class BuildRunner
             sheets = SheetStage.Run(job, checks.Flat, progress);
             ModelOutputs.AddSheets(output, job, sheets);
             warnings.AddRange(sheets.Layout.Figures.Warnings);
+            if (job.Outputs.Png && SheetLimits.PngNote(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) is { } note)
+                warnings.Add(note);
+            if (job.Outputs.Png)
+                output.AddFigure("sheets", "pngDpi", (long)(SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi));
         }
         for (int i = 0; i < warnings.Count; i++) output.AddFigure("warnings", $"warning[{i}]", warnings[i]);
 
