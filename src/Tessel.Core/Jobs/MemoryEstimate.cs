@@ -7,12 +7,12 @@ namespace Tessel.Core.Jobs;
 /// Peak resident memory of whole Release builds without sheets (fit with the automatic solver policy,
 /// checks, folding path) measured with /usr/bin/time -v on this project's 2-core, 24 GB machine,
 /// saddle z = x y / 40 over 10 x 10 m, 4 solver steps (the peak is reached by the first
-/// factorisations): Miura 20 x 20 cells (1,681 vertices) 134 MB, 40 x 40 (6,561) 457 MB, 70 x 70
-/// (19,881) 2,238 MB; reverse-curvature 20 x 20 on a dome 114 MB; Yoshimura 20 x 20 on a cylinder
-/// 94 MB. The growth is faster than linear (the factor's fill), so the model is
-/// base + a V + b V^1.5 in the vertex count V, fitted through the Miura 20 and 70 figures; it
-/// over-estimates 40 x 40 by 15 % and so errs on the safe side. Families whose vertices carry more
-/// constraints get a factor (waterbomb: degree-6 vertices). The PNG raster of a sheet is added
+/// factorisations): Miura 20 x 20 cells (1,681 vertices) 136.8 MB, 40 x 40 (6,561) 468 MB, 70 x 70
+/// (19,881) 2,291 MB; reverse-curvature 20 x 20 on a dome 116.5 MB; Yoshimura 20 x 20 on a cylinder
+/// 96.2 MB; waterbomb 20 x 20 on a dome (1,271 vertices) 134 MB. The growth is faster than linear
+/// (the factor's fill), so the model is base + a V + b V^1.5 in the vertex count V, fitted through
+/// the Miura 20 and 70 figures and rounded up; it over-estimates 40 x 40 by 15 % and so errs on the
+/// safe side. Waterbomb vertices (degree 6) carry more constraints: a factor 1.5 covers its figure. The PNG raster of a sheet is added
 /// twice (the bitmap and its encoding).
 /// </remarks>
 public static class MemoryEstimate
@@ -21,10 +21,10 @@ public static class MemoryEstimate
     public const double BaseBytes = 60e6;
 
     /// <summary>Bytes per pattern vertex (the linear term).</summary>
-    public const double LinearBytesPerVertex = 16_300;
+    public const double LinearBytesPerVertex = 18_500;
 
     /// <summary>Bytes per vertex^1.5 (the factor's fill).</summary>
-    public const double FillBytes = 661;
+    public const double FillBytes = 670;
 
     /// <summary>Share of the machine's memory a build may plan to use: the rest is for the system
     /// and the estimate's own error (common practice, no source).</summary>
