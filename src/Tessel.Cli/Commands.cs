@@ -67,6 +67,7 @@ internal static class Commands
             }
             if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
             string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);
+            OutputFolder.CheckTarget(folder);
             var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
             var output = BuildRunner.Collect(loaded, progress);
             BuildResult result;

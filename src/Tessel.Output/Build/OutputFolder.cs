@@ -99,6 +99,11 @@ public static class OutputFolder
         return root;
     }
 
+    /// <summary>Checks before any work that <paramref name="folder"/> is one a build may replace
+    /// (not a file-system root, the home folder or the current folder); returns its absolute path.</summary>
+    /// <exception cref="JobError">It is not.</exception>
+    public static string CheckTarget(string folder) => Target(folder);
+
     /// <summary>The absolute target folder; a symbolic link to a folder stands for the folder it names.</summary>
     private static string Target(string folder)
     {
