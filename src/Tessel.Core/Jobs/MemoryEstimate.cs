@@ -8,11 +8,13 @@ namespace Tessel.Core.Jobs;
 /// checks, folding path) measured with /usr/bin/time -v on this project's 2-core, 24 GB machine,
 /// saddle z = x y / 40 over 10 x 10 m, 4 solver steps (the peak is reached by the first
 /// factorisations): Miura 20 x 20 cells (1,681 vertices) 136.8 MB, 40 x 40 (6,561) 468 MB, 70 x 70
-/// (19,881) 2,291 MB; reverse-curvature 20 x 20 on a dome 116.5 MB; Yoshimura 20 x 20 on a cylinder
+/// (19,881) 2,291 MB; reverse-curvature 20 x 20 on a dome 116.5 MB, 40 x 40 457.5 MB; Yoshimura 20 x 20 on a cylinder
 /// 96.2 MB; waterbomb 20 x 20 on a dome (1,271 vertices) 134 MB. The growth is faster than linear
 /// (the factor's fill), so the model is base + a V + b V^1.5 in the vertex count V, fitted through
 /// the Miura 20 and 70 figures and rounded up; it over-estimates 40 x 40 by 15 % and so errs on the
-/// safe side. Waterbomb vertices (degree 6) carry more constraints: a factor 1.5 covers its figure. The PNG raster of a sheet is added
+/// safe side. Waterbomb vertices (degree 6) carry more constraints: a factor 1.5 covers its figure.
+/// Free-triangulated sheets were not measured (their fits ran past a 400 s cap on the loaded machine);
+/// they use the Miura figures per vertex. The PNG raster of a sheet is added
 /// twice (the bitmap and its encoding).
 /// </remarks>
 public static class MemoryEstimate

@@ -17,6 +17,7 @@ public class LimitsTests
     [InlineData("miura", 40, 457_024 * 1024.0)]
     [InlineData("miura", 70, 2_237_504 * 1024.0)]
     [InlineData("reverse-curvature", 20, 113_784 * 1024.0)]
+    [InlineData("reverse-curvature", 40, 446_776 * 1024.0)]
     [InlineData("yoshimura", 20, 93_988 * 1024.0)]
     [InlineData("waterbomb", 20, 130_900 * 1024.0)]
     public void TheEstimateCoversTheMeasuredPeaks(string family, int cells, double measured)
