@@ -10,17 +10,30 @@ namespace Tessel.Cli;
 /// <summary>The verbs and their options. Each action only parses, calls Core/Output, and prints.</summary>
 internal static class Commands
 {
-    public static RootCommand Root(TextWriter stdout, TextWriter stderr)
+    public static RootCommand Root(TextWriter stdout, TextWriter stderr, Interruption? interruption = null)
     {
         var root = new RootCommand("Tessel fits a foldable crease tessellation to a curved surface and lays it out as fabrication sheets.");
-        root.Add(Build(stdout, stderr));
+        root.Add(Build(stdout, stderr, interruption));
         root.Add(Scaffold(stdout));
         root.Add(CatalogVerb(stdout));
         root.Add(Validate(stdout));
         return root;
     }
 
-    private static Command Build(TextWriter stdout, TextWriter stderr)
+    /// <summary>An empty path ("") names no file: refused while parsing, as a usage error.</summary>
+    private static void NotEmpty(Argument<string?> argument) => argument.Validators.Add(r =>
+    {
+        if (r.Tokens.Count > 0 && string.IsNullOrWhiteSpace(r.Tokens[0].Value))
+            r.AddError($"the {argument.Name} argument is empty; give the path of a job file");
+    });
+
+    private static void NotEmpty(Option<string?> option, string what) => option.Validators.Add(r =>
+    {
+        if (r.Tokens.Count > 0 && string.IsNullOrWhiteSpace(r.Tokens[0].Value))
+            r.AddError($"{option.Name} is empty; give the {what}");
+    });
+
+    private static Command Build(TextWriter stdout, TextWriter stderr, Interruption? interruption)
     {
         var job = new Argument<string?>("job")
         {
@@ -32,6 +45,8 @@ internal static class Commands
             Description = "Folder to write into (created if missing). Default: output/<job name> under the current folder.",
             HelpName = "DIR",
         };
+        NotEmpty(job);
+        NotEmpty(outDir, "folder to write into");
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress lines, only the result and errors." };
         var seed = new Option<int?>("--seed") { Description = "Seed for random choices, overriding the job's seed and fitting.seed.", HelpName = "N" };
         var accept = new Option<bool>("--accept-unconverged") { Description = "Write outputs even when the fit does not converge." };
@@ -52,9 +67,17 @@ internal static class Commands
             }
             if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
             string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);
+            OutputFolder.CheckTarget(folder);
             var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
             var output = BuildRunner.Collect(loaded, progress);
-            var result = BuildRunner.Write(output, loaded, folder, progress);
+            BuildResult result;
+            using (interruption?.Writing())
+                result = BuildRunner.Write(output, loaded, folder, progress, interruption?.Token ?? default);
+            if (interruption?.Token.IsCancellationRequested == true)
+            {
+                stderr.WriteLine($"tessel: interrupted after the new build was already in place in {result.Folder}");
+                return ExitCodes.Interrupted;
+            }
             if (output.Terminal is not null && !r.GetValue(quiet)) stdout.WriteLine(output.Terminal.TrimEnd('\n'));
             if (output.Problem is not null)
             {
@@ -86,6 +109,7 @@ internal static class Commands
             Description = "File to write. Default: <kind>-<family>.json in the current folder. Never overwrites.",
             HelpName = "FILE",
         };
+        NotEmpty(outFile, "job file to write");
         var cmd = new Command("scaffold", "Write a commented, valid starting job file for a target kind and family.")
         {
             target, family, outFile,
@@ -140,17 +164,20 @@ internal static class Commands
 
     private static Command Validate(TextWriter stdout)
     {
-        var job = new Argument<string>("job") { Description = "Job file to check." };
+        var job = new Argument<string?>("job") { Description = "Job file to check." };
+        NotEmpty(job);
         var cmd = new Command("validate", "Check a job file: fields, target inputs, and that the target is defined over the whole footprint. Writes nothing.")
         {
             job,
         };
         cmd.SetAction(r =>
         {
-            var loaded = JobLoader.Load(r.GetRequiredValue(job));
+            var loaded = JobLoader.Load(r.GetValue(job)!);
             var target = TargetFactory.Build(loaded.Target, loaded.BaseDirectory, HeightMapImage.Decode);
             var f = target.Footprint;
             stdout.WriteLine($"OK {loaded.Name}: {target.Description}; footprint {f.Width:0.###} x {f.Depth:0.###} m; family {loaded.Tessellation.Family}");
+            var sheet = loaded.Fabrication.Sheet;
+            if (loaded.Outputs.Png && SheetLimits.PngNote(sheet.WidthMm, sheet.HeightMm) is { } note) stdout.WriteLine($"note: {note}");
             return ExitCodes.Ok;
         });
         return cmd;

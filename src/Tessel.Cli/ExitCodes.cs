@@ -13,4 +13,6 @@ public static class ExitCodes
     public const int OutputNotWritable = 3;
     /// <summary>A bug in Tessel: please report it with the job file.</summary>
     public const int InternalError = 4;
+    /// <summary>Stopped by Ctrl-C (SIGINT) or SIGTERM; the output folder is as it was (128 + SIGINT's number 2, the shells' convention).</summary>
+    public const int Interrupted = 130;
 }

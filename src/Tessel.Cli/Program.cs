@@ -9,12 +9,18 @@ namespace Tessel.Cli;
 public static class Program
 {
     /// <summary>Process entry point.</summary>
-    public static int Main(string[] args) => Run(args, Console.Out, Console.Error);
+    public static int Main(string[] args)
+    {
+        using var interruption = Interruption.Install(Console.Error);
+        return Run(args, Console.Out, Console.Error, interruption);
+    }
 
     /// <summary>Runs the command line with the given streams; returns the exit code (<see cref="ExitCodes"/>).</summary>
-    public static int Run(string[] args, TextWriter stdout, TextWriter stderr)
+    public static int Run(string[] args, TextWriter stdout, TextWriter stderr) => Run(args, stdout, stderr, null);
+
+    private static int Run(string[] args, TextWriter stdout, TextWriter stderr, Interruption? interruption)
     {
-        var root = Commands.Root(stdout, stderr);
+        var root = Commands.Root(stdout, stderr, interruption);
         var parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
         {
@@ -50,6 +56,16 @@ public static class Program
         {
             stderr.WriteLine($"tessel: {e.Message}");
             return ExitCodes.OutputNotWritable;
+        }
+        catch (OutputFolderError e)
+        {
+            stderr.WriteLine($"tessel: {e.Message}");
+            return ExitCodes.OutputNotWritable;
+        }
+        catch (OperationCanceledException)
+        {
+            stderr.WriteLine("tessel: interrupted; the output folder was left as it was");
+            return ExitCodes.Interrupted;
         }
         catch (Exception e)
         {

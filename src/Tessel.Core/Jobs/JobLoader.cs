@@ -20,7 +20,10 @@ public static partial class JobLoader
     /// <exception cref="JobError">The file is missing, unreadable, malformed or invalid.</exception>
     public static Job Load(string path)
     {
+        if (string.IsNullOrWhiteSpace(path)) throw new JobError("job", "no job file given (the path is empty); name a job file, e.g. tessel build patterns/saddle-canopy.json");
         string text;
+        if (!Directory.Exists(path) && InputFile.KindOf(path) is { } kind && kind != "regular file")
+            throw new JobError(path, $"is a {kind}, not a job file; give the path of the job file itself");
         try { text = ReadBounded(path); }
         catch (FileNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
         catch (DirectoryNotFoundException) { throw new JobError(path, "job file not found; check the path"); }
@@ -85,10 +88,14 @@ public static partial class JobLoader
             int seed = root.Integer("seed") ?? 1;
             var target = ReadTarget(root.Object("target"));
             var tess = ReadTessellation(root.Object("tessellation"));
-            CheckMemory(target, tess);
             var fitting = ReadFitting(root.Object("fitting"));
             var fab = ReadFabrication(root.Object("fabrication"));
             var outputs = ReadOutputs(root.Object("outputs"));
+            var sheet = fab.Sheet;
+            string sheetField = sheet.Name is not null ? "fabrication.sheet.name"
+                : sheet.WidthMm >= sheet.HeightMm ? "fabrication.sheet.widthMm" : "fabrication.sheet.heightMm";
+            SheetLimits.Check(sheetField, sheet.WidthMm, sheet.HeightMm, outputs.Pdf, outputs.Png);
+            CheckMemory(target, tess, outputs.Png ? SheetLimits.PngRasterBytes(sheet.WidthMm, sheet.HeightMm) : 0);
             root.RejectUnknown();
             string name = nameText ?? "tessel-model";
             if (!SafeName().IsMatch(name) || Reserved.Contains(name.Split('.')[0].ToUpperInvariant()))
@@ -269,10 +276,11 @@ public static partial class JobLoader
         r.RejectUnknown();
         CheckChoice(r.PathOf("family"), family, Catalog.Families.Select(f => f.Name), family.Contains("egg", StringComparison.OrdinalIgnoreCase)
             ? "the egg-box pattern is not developable and cannot be folded from one sheet; " : "");
-        if (cx > 500 && cy is > 0 && EstimatedBytes(family, cx.Value, cy.Value) is var (v, bytes) && bytes > MemoryLimitBytes)
-            throw new JobError(r.PathOf("cellsX"), $"{Big(cx.Value)} x {Big(cy.Value)} {family} cells would have about {Big(v)} vertices and need about {Gb(bytes)} GB of memory; the limit is {Gb(MemoryLimitBytes)} GB, so use fewer cells (tessellation.cellsX and tessellation.cellsY)");
-        if (cy > 500 && cx is > 0 && EstimatedBytes(family, cx.Value, cy.Value) is var (v2, bytes2) && bytes2 > MemoryLimitBytes)
-            throw new JobError(r.PathOf("cellsY"), $"{Big(cx.Value)} x {Big(cy.Value)} {family} cells would have about {Big(v2)} vertices and need about {Gb(bytes2)} GB of memory; the limit is {Gb(MemoryLimitBytes)} GB, so use fewer cells (tessellation.cellsX and tessellation.cellsY)");
+        // Absurd counts are refused by their memory first: that message says what would fit.
+        if (cx > 500 && cy is > 0 && MemoryEstimate.Problem(family, cx.Value, cy.Value) is { } tooBigX)
+            throw new JobError(r.PathOf("cellsX"), tooBigX + "; use fewer cells (tessellation.cellsX and tessellation.cellsY)");
+        if (cy > 500 && cx is > 0 && MemoryEstimate.Problem(family, cx.Value, cy.Value) is { } tooBigY)
+            throw new JobError(r.PathOf("cellsY"), tooBigY + "; use fewer cells (tessellation.cellsX and tessellation.cellsY)");
         if (cx is not null && (cx < 1 || cx > 500)) throw new JobError(r.PathOf("cellsX"), $"must be a whole number from 1 to 500 (got {cx})");
         if (cy is not null && (cy < 1 || cy > 500)) throw new JobError(r.PathOf("cellsY"), $"must be a whole number from 1 to 500 (got {cy})");
         Positive(r.PathOf("cellSize"), size, "length in the target's units", required: false);
@@ -283,36 +291,10 @@ public static partial class JobLoader
         return new TessellationSpec(family, cx, cy, size, sector, depth, orient, share);
     }
 
-    /// <summary>Memory limit for one build, in bytes; see <see cref="EstimatedBytes"/>.</summary>
-    public const double MemoryLimitBytes = 4.0 * 1024 * 1024 * 1024;
-
-    /// <summary>Working memory per pattern vertex: 3 unknowns, about 6 residual rows of about 24
-    /// non-zeros each in the Jacobian, the normal-equation factor with its fill, and copies kept per
-    /// start and along the folding path. A deliberate over-estimate: the job is refused before any
-    /// of it is allocated.</summary>
-    public const double BytesPerVertex = 4096;
-
-    /// <summary>Pattern vertices per cell of each family: the degree-4 and degree-6 families place a
-    /// 2 x 2 block of vertices per cell, free-triangulated quads one.</summary>
-    private static double VerticesPerCell(string family, double cx, double cy) => family switch
-    {
-        "free-triangulated" => (cx + 1) * (cy + 1),
-        // Grid-line vertices plus one centre per base (odd rows end in two half bases).
-        "waterbomb" => (2 * cx + 1) * (cy + 1) + cx * cy + Math.Floor(cy / 2),
-        _ => (2 * cx + 1) * (2 * cy + 1),
-    };
-
-    /// <summary>Estimated vertices and bytes for a pattern of <paramref name="cellsX"/> x
-    /// <paramref name="cellsY"/> cells of <paramref name="family"/>.</summary>
-    public static (double Vertices, double Bytes) EstimatedBytes(string family, double cellsX, double cellsY)
-    {
-        double v = VerticesPerCell(family, cellsX, cellsY);
-        return (v, v * BytesPerVertex);
-    }
-
     /// <summary>Refuses patterns whose cell counts (given, or derived from cellSize and the footprint)
-    /// would need more memory than <see cref="MemoryLimitBytes"/>, before anything is built.</summary>
-    private static void CheckMemory(TargetSpec target, TessellationSpec tess)
+    /// would need more memory than this machine allows a build (<see cref="MemoryEstimate"/>), before
+    /// anything is built.</summary>
+    private static void CheckMemory(TargetSpec target, TessellationSpec tess, double rasterBytes)
     {
         double? extentX = null, extentY = null;
         if (target.Footprint is { } f)
@@ -329,26 +311,13 @@ public static partial class JobLoader
             extent is double e && size is double s ? Math.Max(1, Math.Round(e / s)) : null;
         double? cx = tess.CellsX ?? Derived(extentX, tess.CellSize);
         double? cy = tess.CellsY ?? Derived(extentY, tess.CellSize);
-        if (cx is not double nx || cy is not double ny) return; // a mesh without a footprint: known only once it is read
-        var (vertices, bytes) = EstimatedBytes(tess.Family, nx, ny);
-        if (bytes <= MemoryLimitBytes) return;
+        if (cx is not double nx || cy is not double ny) return; // a mesh without a footprint: checked once the pattern exists
         bool derived = tess.CellsX is null || tess.CellsY is null;
+        if (MemoryEstimate.Problem(tess.Family, nx, ny, rasterBytes, countsNote: derived ? $" (footprint / cellSize {Format(tess.CellSize ?? 0)})" : "") is not { } problem) return;
         string where = derived ? "tessellation.cellSize" : "tessellation.cellsX";
-        string counts = $"{Big(nx)} x {Big(ny)} {tess.Family} cells";
-        throw new JobError(where,
-            $"{counts}{(derived ? $" (footprint / cellSize {Format(tess.CellSize ?? 0)})" : "")} would have about {Big(vertices)} vertices and need about {Gb(bytes)} GB of memory; "
-            + $"the limit is {Gb(MemoryLimitBytes)} GB, so use fewer cells (tessellation.cellsX and tessellation.cellsY){(derived ? " or a larger tessellation.cellSize" : "")}");
+        throw new JobError(where, problem
+            + $"; use fewer cells (tessellation.cellsX and tessellation.cellsY){(derived ? " or a larger tessellation.cellSize" : "")}");
     }
-
-    private static string Big(double v) => v < 1e15
-        ? v.ToString("#,0", System.Globalization.CultureInfo.InvariantCulture)
-        : v.ToString("0.##e0", System.Globalization.CultureInfo.InvariantCulture);
-
-    private static string Gb(double bytes) => (bytes / (1024.0 * 1024 * 1024)) switch
-    {
-        < 10 and var g => g.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture),
-        var g => Big(Math.Round(g)),
-    };
 
     private static FittingSpec ReadFitting(FieldReader r)
     {

@@ -24,6 +24,9 @@ public sealed class FormulaSurface : GraphSurface
     /// <summary>The formula as typed.</summary>
     public string Text { get; }
 
+    /// <summary>The parsed formula, in the job's length unit.</summary>
+    public FormulaNode Tree => _formula;
+
     public override string Description => $"formula z = {Text}";
 
     /// <summary>With s metres per unit, z(x) = s f(x / s): first derivatives carry over unchanged,

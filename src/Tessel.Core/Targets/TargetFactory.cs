@@ -35,6 +35,16 @@ public static class TargetFactory
             _ => throw new JobError("target.kind", $"unknown kind \"{spec.Kind}\""),
         };
         var bad = TargetDomainCheck.FirstUndefined(target);
+        // Samples can step over a pole or a kink; the formula's intervals cannot (a box search over the footprint).
+        if (bad is null && target is FormulaSurface formula && footprint is not null)
+        {
+            var trouble = FormulaIntervals.FirstTrouble(formula.Tree, footprint.MinX / s, footprint.MaxX / s, footprint.MinY / s, footprint.MaxY / s,
+                (x, y) => footprint.Contains(x * s, y * s));
+            if (trouble is { } t)
+                bad = (t.X * s, t.Y * s, t.Trouble == FormulaTrouble.Pole
+                    ? "the height is undefined or infinite between the sample points (a division by zero, a log or square root of a negative number, or tan at a pole)"
+                    : "the surface has a kink or a vertical slope between the sample points (abs at zero, sqrt at zero, asin or acos at +-1)");
+        }
         if (bad is { } b)
         {
             string field = spec.Kind switch { "formula" => "target.formula", "mesh" => "target.mesh", "height-map" => "target.footprint", _ => "target.footprint" };
@@ -84,7 +94,7 @@ public static class TargetFactory
     {
         if (decode is null) throw new JobError("target.image", "height maps need an image reader, which this front end does not provide");
         string path = Resolve(baseDirectory, spec.Image!);
-        if (!File.Exists(path)) throw new JobError("target.image", $"image file not found: {path}");
+        InputFile.RequireRegular(path, "target.image", "image file", InputFile.MaxImageBytes);
         var img = decode(path);
         if (img.Width < 2 || img.Height < 2) throw new JobError("target.image", $"the image must be at least 2 x 2 pixels (got {img.Width} x {img.Height})");
         double w = s * spec.ImageWidth!.Value, d = s * spec.ImageDepth!.Value;
@@ -96,7 +106,7 @@ public static class TargetFactory
     {
         string path = Resolve(baseDirectory, spec.Mesh!);
         byte[] bytes;
-        try { bytes = File.ReadAllBytes(path); }
+        try { bytes = InputFile.ReadBounded(path, "target.mesh", "mesh file", InputFile.MaxMeshBytes); }
         catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
         { throw new JobError("target.mesh", $"mesh file not found: {path}"); }
         catch (Exception e) when (e is IOException or UnauthorizedAccessException)

@@ -17,8 +17,8 @@ public sealed record BuildResult(string Folder, IReadOnlyList<(string Path, long
 
 /// <summary>Runs the pipeline for one job and writes its files into one output folder.</summary>
 /// <remarks>Every stage adds files and figures to a <see cref="BuildOutput"/>; nothing touches the disk
-/// until all stages have succeeded. Then each file is written to a temporary name and renamed
-/// (<see cref="AtomicFile"/>), summary.json last, and never outside the output folder.
+/// until all stages have succeeded. Then <see cref="OutputFolder"/> writes them into a staging folder
+/// and swaps it for the output folder whole, never writing outside it.
 /// To add a stage: compute it after the ones it needs inside <see cref="Collect"/> and add its files
 /// and figures to the <see cref="BuildOutput"/>.</remarks>
 public static class BuildRunner
@@ -63,6 +63,11 @@ public static class BuildRunner
             output.AddFigure("tessellation", "note", tessellation.Unavailable!);
             return;
         }
+        // The size is known exactly now (a mesh target without a footprint gets its cell counts only here).
+        double raster = job.Outputs.Png ? SheetLimits.PngRasterBytes(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) : 0;
+        if (MemoryEstimate.ProblemForPattern(job.Tessellation.Family, tessellation.Pattern.Mesh.VertexCount, raster) is { } tooBig)
+            throw new JobError(job.Tessellation.CellSize is null ? "tessellation.cellsX" : "tessellation.cellSize",
+                tooBig + "; use fewer cells (tessellation.cellsX and tessellation.cellsY) or a larger tessellation.cellSize");
         var sheetSettings = SheetStage.SettingsFor(job);
         var fit = FitStage.Run(job, tessellation.Pattern, target, progress, tessellation.DrapeOn);
         ModelOutputs.AddFit(output, job, tessellation, fit);
@@ -101,6 +106,10 @@ public static class BuildRunner
             sheets = SheetStage.Run(job, checks.Flat, progress);
             ModelOutputs.AddSheets(output, job, sheets);
             warnings.AddRange(sheets.Layout.Figures.Warnings);
+            if (job.Outputs.Png && SheetLimits.PngNote(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) is { } note)
+                warnings.Add(note);
+            if (job.Outputs.Png)
+                output.AddFigure("sheets", "pngDpi", (long)(SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi));
         }
         for (int i = 0; i < warnings.Count; i++) output.AddFigure("warnings", $"warning[{i}]", warnings[i]);
 
@@ -151,51 +160,15 @@ public static class BuildRunner
         }
     }
 
-    /// <summary>Writes gathered files and the summary into <paramref name="outputFolder"/>.</summary>
-    public static BuildResult Write(BuildOutput output, Job job, string outputFolder, ProgressReporter progress)
+    /// <summary>Writes gathered files and the summary into <paramref name="outputFolder"/>, replacing
+    /// the files of the previous build there and keeping everything else (<see cref="OutputFolder"/>).</summary>
+    /// <param name="cancel">Checked between files; when it fires before the swap, nothing in the
+    /// folder has changed and <see cref="OperationCanceledException"/> is thrown.</param>
+    public static BuildResult Write(BuildOutput output, Job job, string outputFolder, ProgressReporter progress, CancellationToken cancel = default)
     {
-        string root = Path.GetFullPath(outputFolder);
-        progress.Stage("write", root);
-        try
-        {
-            if (File.Exists(root)) throw new OutputNotWritableError(root, "a file with that name exists");
-            Directory.CreateDirectory(root);
-        }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        {
-            throw new OutputNotWritableError(root, e.Message, e);
-        }
-        // Two phases, so that a build stopped at any point leaves the previous outputs as they were:
-        // every file goes to a temporary name first; only when all are on disk are they renamed, the
-        // summary last. The rename phase is a few metadata operations.
-        // Temporary files of an earlier build that was stopped mid-write are ours to remove.
-        foreach (var stale in Directory.EnumerateFiles(root, ".*.partial", SearchOption.AllDirectories)) AtomicFile.Discard(stale);
-        var written = new List<(string, long)>();
-        var pending = new List<(string Temp, string Full, string Rel, long Bytes)>();
-        string prefix = root.EndsWith(Path.DirectorySeparatorChar) ? root : root + Path.DirectorySeparatorChar;
-        try
-        {
-            foreach (var (rel, bytes) in output.Files.Append((SummaryFile, output.SummaryJson(job.Name, job.Description))))
-            {
-                string full = Path.GetFullPath(Path.Combine(root, rel.Replace('/', Path.DirectorySeparatorChar)));
-                if (!full.StartsWith(prefix, StringComparison.Ordinal))
-                    throw new InvalidOperationException($"refusing to write outside the output folder: {rel}");
-                Directory.CreateDirectory(Path.GetDirectoryName(full)!);
-                pending.Add((AtomicFile.WriteTemporary(full, bytes), full, rel, bytes.Length));
-            }
-            foreach (var (temp, full, rel, bytes) in pending)
-            {
-                AtomicFile.Commit(temp, full);
-                progress.Step($"{rel} ({bytes} bytes)");
-                written.Add((rel, bytes));
-            }
-        }
-        catch (Exception e)
-        {
-            foreach (var p in pending) AtomicFile.Discard(p.Temp);
-            if (e is IOException or UnauthorizedAccessException) throw new OutputNotWritableError(root, e.Message, e);
-            throw;
-        }
-        return new BuildResult(root, written);
+        progress.Stage("write", Path.GetFullPath(outputFolder));
+        var files = output.Files.Append((SummaryFile, output.SummaryJson(job.Name, job.Description))).ToList();
+        string root = OutputFolder.Replace(outputFolder, files, progress.Step, cancel);
+        return new BuildResult(root, files.Select(f => (f.Item1, (long)f.Item2.Length)).ToList());
     }
 }

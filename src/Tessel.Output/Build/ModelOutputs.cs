@@ -133,7 +133,9 @@ public static class ModelOutputs
         {
             bool wanted = format switch { "svg" => job.Outputs.Svg, "dxf" => job.Outputs.Dxf, "pdf" => job.Outputs.Pdf, _ => job.Outputs.Png };
             if (!wanted) continue;
-            var writer = SheetWriterFormats.Create(format);
+            // A sheet too large for a 300 dpi raster is written at a lower resolution (the job loader has
+            // refused sheets that no resolution fits).
+            var writer = SheetWriterFormats.Create(format, SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi);
             if (writer.OneFilePerSheet)
             {
                 if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], sheets.Styles));

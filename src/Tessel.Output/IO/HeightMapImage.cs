@@ -19,7 +19,7 @@ public static class HeightMapImage
     /// <exception cref="JobError">The file is missing or not a readable image.</exception>
     public static GrayImage Decode(string path)
     {
-        if (!File.Exists(path)) throw new JobError("target.image", $"image file not found: {path}");
+        InputFile.RequireRegular(path, "target.image", "image file", InputFile.MaxImageBytes);
         using var codec = SKCodec.Create(path);
         if (codec is null) throw new JobError("target.image", $"not a readable image (expected a grayscale PNG): {path}");
         int w = codec.Info.Width, h = codec.Info.Height;

@@ -157,7 +157,7 @@ public class OddJobFileTests
         var r = CliHarness.Run("validate", "/dev/zero");
         Assert.False(r.Hung);
         Assert.Equal(ExitCodes.BadInput, r.Code);
-        Assert.StartsWith("tessel: /dev/zero: is larger than 4 MB", r.Err);
+        Assert.StartsWith("tessel: /dev/zero: is a character device, not a job file", r.Err);
     }
 
     [Fact]

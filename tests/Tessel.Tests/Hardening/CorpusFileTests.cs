@@ -22,7 +22,10 @@ public class CorpusFileTests(ITestOutputHelper log)
     {
         string file = Path.Combine(CorpusDir, job);
         string outRoot = TestPaths.NewTempFolder();
+        var clock = System.Diagnostics.Stopwatch.StartNew();
         var (problems, valid) = CliHarness.Check(file, outRoot);
+        // Logged, not asserted (timings depend on the machine's load): every case should end well within a minute.
+        log.WriteLine($"{job}: validate and build took {clock.Elapsed.TotalSeconds:0.0} s");
         Assert.True(problems.Count == 0, string.Join("\n", problems));
         var expected = Expected();
         var v = CliHarness.Run("validate", file);

@@ -21,8 +21,9 @@ public class BuildRunnerTests
         Assert.Equal(["target.obj", "target.png"], paths[..2]);
         Assert.Equal("summary.json", paths[^1]);
         foreach (var (path, bytes) in result.Files) Assert.Equal(bytes, new FileInfo(Path.Combine(dir, path)).Length);
-        // No temporary files left behind.
-        Assert.Equal(paths.Length, Directory.GetFiles(dir, "*", SearchOption.AllDirectories).Length);
+        // No temporary files left behind: the files and the manifest of what Tessel wrote.
+        Assert.Equal(paths.Length + 1, Directory.GetFiles(dir, "*", SearchOption.AllDirectories).Length);
+        Assert.True(File.Exists(Path.Combine(dir, OutputFolder.ManifestFile)));
 
         using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(dir, "summary.json")));
         var files = summary.RootElement.GetProperty("files").EnumerateArray().ToList();
