@@ -17,7 +17,8 @@ public sealed record ChecksStageResult(
     FlatStrainResult Strain,
     int ShortEdgeCount,
     double ShortestEdgeMm,
-    EnvelopeCurvature? Envelope = null)
+    EnvelopeCurvature? Envelope = null,
+    FoldBoundCount? FoldBounds = null)
 {
     /// <summary>Panel pairs that collide at the fitted state or at any kept state of the path.</summary>
     public int CollisionCount => FittedCollisions.Count + PathCollisions.Sum(f => f.Collisions.Count);
@@ -48,6 +49,7 @@ public static class ChecksStage
         var fittedCollisions = PanelCollisions.Find(fitted);
         var pathCollisions = PanelCollisions.AlongPath(fitted, path);
         var foldAngles = FoldAngleTable.Build(fitted, job.Fabrication.Scale);
+        var foldBounds = FoldRoles.Bounds(fitted, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg);
         var strain = FlatLayoutStrain.Measure(flat, strainLimit);
 
         double minMm = job.Fitting.Bounds.MinEdgeLengthMm, shortest = double.PositiveInfinity;
@@ -68,6 +70,6 @@ public static class ChecksStage
             if (curvature is not null)
                 progress.Step($"envelope angle defects {curvature.MinDefect:0.###E+0} to {curvature.MaxDefect:0.###E+0} rad, positive at {curvature.Positive} of {curvature.Interior}");
         }
-        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest, curvature);
+        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest, curvature, foldBounds);
     }
 }

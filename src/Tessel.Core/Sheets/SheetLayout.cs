@@ -185,9 +185,15 @@ public static class SheetLayout
             int fl = mesh.EdgeFaceLeft[e], fr = mesh.EdgeFaceRight[e];
             if (partOf[fl] != partOf[fr]) continue;
             var role = pattern.Role(e);
-            if (settings.MethodFor(role) is not FoldMethod method) continue;
             var (v0, v1) = pattern.Edge(e);
             int part = partOf[fl];
+            // A crease the fitted model leaves flat is shown, so the facet edges stay visible, but never folded.
+            if (role == CreaseRole.Flat)
+            {
+                lines.Add(new PendingLine(part, e, LineClass.FlatCrease, [Place(part, model[v0]), Place(part, model[v1])], false, LineJob.Annotation));
+                continue;
+            }
+            if (settings.MethodFor(role) is not FoldMethod method) continue;
             AddFold(part, e, role == CreaseRole.Mountain ? LineClass.Mountain : LineClass.Valley, method, Place(part, model[v0]), Place(part, model[v1]));
         }
 
@@ -536,14 +542,14 @@ public static class SheetLayout
     }
 
     /// <summary>Beam-off travel through a job: from the sheet's corner to each line's start in order.
-    /// Annotation lines are drawn, not lasered, and are skipped.</summary>
+    /// Annotation and flat-crease lines are drawn, not lasered, and are skipped.</summary>
     internal static double TravelLength(IEnumerable<SheetLine> job)
     {
         var at = Vec2.Zero;
         double travel = 0;
         foreach (var l in job)
         {
-            if (l.Class == LineClass.Annotation || l.Points.Length == 0) continue;
+            if (l.Class is LineClass.Annotation or LineClass.FlatCrease || l.Points.Length == 0) continue;
             travel += (l.Points[0] - at).Length;
             at = l.Closed ? l.Points[0] : l.Points[^1];
         }

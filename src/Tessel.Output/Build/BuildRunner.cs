@@ -1,3 +1,4 @@
+using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Targets;
@@ -85,6 +86,8 @@ public static class BuildRunner
         if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
         if (checks.Strain.FacetsOverLimit.Length > 0)
             warnings.Add($"{checks.Strain.FacetsOverLimit.Length} facet(s) need more than the material's {strainLimit * 100:0.##} % strain to lie flat (largest {checks.Strain.MaxStrain * 100:0.###} %)");
+        if (checks.FoldBounds is { Violations: > 0 } fb)
+            warnings.Add($"{fb.Violations} fold(s) outside fitting.bounds fold angles {Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0):0.###} to {job.Fitting.Bounds.MaxFoldAngleDeg:0.###} deg ({fb.BelowMinimum} below, {fb.AboveMaximum} above; worst by {fb.MaxViolationRad * 180 / Math.PI:0.###} deg); creases under {FoldRoles.FlatToleranceDeg} deg are drawn flat");
         if (checks.ShortEdgeCount > 0)
             warnings.Add($"{checks.ShortEdgeCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestEdgeMm:0.##} mm)");
         if (tessellation.Pattern.PromisesSynclasticEnvelope && checks.Envelope is { Synclastic: false } env)
