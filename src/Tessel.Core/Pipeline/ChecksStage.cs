@@ -28,21 +28,32 @@ public sealed record ChecksStageResult(
 /// degrees of freedom, rigid folding path, collisions, fold-angle table and flat-layout strain.</summary>
 public static class ChecksStage
 {
+    /// <summary>Runs one step, turning a numerical breakdown inside it into a one-line error naming the step.</summary>
+    private static T Guard<T>(string step, Func<T> run)
+    {
+        try { return run(); }
+        catch (Exception e) when (e is NotPositiveDefiniteException or ArithmeticException)
+        {
+            throw new StageBreakdownError(step.StartsWith("unfold", StringComparison.Ordinal) ? "unfold" : "checks",
+                $"{step} broke down on the fitted model: {e.Message}; the fit left a degenerate or singular model, try other cell counts or cellSize", e);
+        }
+    }
+
     /// <param name="envelope">The family's envelope builder (<see cref="GeneratedPattern.Envelope"/>), or null.</param>
     public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress,
         Func<CreaseMesh, CreaseMesh>? envelope = null)
     {
         progress.Stage("unfold", "developing the fitted pattern to the plane");
-        var flat = MeshUnfolder.Unfold(fitted, new AutoSolver());
+        var flat = Guard("unfolding", () => MeshUnfolder.Unfold(fitted, new AutoSolver()));
         double maxEdgeStrain = flat.EdgeStrain.Length == 0 ? 0 : flat.EdgeStrain.Max(Math.Abs);
         progress.Step($"largest edge length error {maxEdgeStrain * 100:0.####} %");
 
         progress.Stage("checks", "degrees of freedom");
-        var rigidity = RigidityAnalysis.DegreesOfFreedom(fitted);
+        var rigidity = Guard("the degree-of-freedom check", () => RigidityAnalysis.DegreesOfFreedom(fitted));
         progress.Step($"DOF {rigidity.DegreesOfFreedom} (rank {rigidity.Rank} of {rigidity.Unknowns}, gap {rigidity.GapRatio:0.##E+0}, {rigidity.Method})");
 
         progress.Step("rigid folding path toward flat and further folded");
-        var path = RigidFoldingPath.Simulate(fitted);
+        var path = Guard("the folding-path check", () => RigidFoldingPath.Simulate(fitted));
         progress.Step($"progress {path.LowestProgress:0.###} to {path.HighestProgress:0.###}, near-flat {(path.ReachedNearFlat ? "reached" : "not reached")}, drift {path.MaxBarStrain:0.##E+0}");
 
         progress.Step("panel collisions");
