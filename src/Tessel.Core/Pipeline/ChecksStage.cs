@@ -28,6 +28,21 @@ public sealed record ChecksStageResult(
 /// degrees of freedom, rigid folding path, collisions, fold-angle table and flat-layout strain.</summary>
 public static class ChecksStage
 {
+    private static bool IsFlat(CreaseMesh mesh)
+    {
+        for (int e = 0; e < mesh.EdgeCount; e++)
+            if (mesh.IsInterior(e) && Math.Abs(mesh.FoldAngle(e)) > 1e-9) return false;
+        return true;
+    }
+
+    private static FoldingPathResult FlatPath(CreaseMesh mesh, int degreesOfFreedom)
+    {
+        const string why = "the fitted model has no fold: it is flat already";
+        return new FoldingPathResult(degreesOfFreedom, true, 0, 1, 0, 0, 0, 0, why, why,
+            [new FoldingKeyframe(0, 0, (double[])mesh.Positions.Clone(), 0), new FoldingKeyframe(1, 0, (double[])mesh.Positions.Clone(), 0)],
+            TimeSpan.Zero);
+    }
+
     /// <summary>Runs one step, turning a numerical breakdown inside it into a one-line error naming the step.</summary>
     private static T Guard<T>(string step, Func<T> run)
     {
@@ -53,7 +68,9 @@ public static class ChecksStage
         progress.Step($"DOF {rigidity.DegreesOfFreedom} (rank {rigidity.Rank} of {rigidity.Unknowns}, gap {rigidity.GapRatio:0.##E+0}, {rigidity.Method})");
 
         progress.Step("rigid folding path toward flat and further folded");
-        var path = Guard("the folding-path check", () => RigidFoldingPath.Simulate(fitted));
+        // A model with no fold has no folding path to follow: it is its own flat state.
+        var path = IsFlat(fitted) ? FlatPath(fitted, rigidity.DegreesOfFreedom)
+            : Guard("the folding-path check", () => RigidFoldingPath.Simulate(fitted));
         progress.Step($"progress {path.LowestProgress:0.###} to {path.HighestProgress:0.###}, near-flat {(path.ReachedNearFlat ? "reached" : "not reached")}, drift {path.MaxBarStrain:0.##E+0}");
 
         progress.Step("panel collisions");

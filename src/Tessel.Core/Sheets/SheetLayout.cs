@@ -57,6 +57,11 @@ public static class SheetLayout
             if (mesh.IsInterior(e)) { neighbourSets[mesh.EdgeFaceLeft[e]].Add(mesh.EdgeFaceRight[e]); neighbourSets[mesh.EdgeFaceRight[e]].Add(mesh.EdgeFaceLeft[e]); }
         var neighbours = neighbourSets.Select(s => s.ToArray()).ToArray();
 
+        var (flipped, overlap, total) = SelfOverlap(facePolys);
+        // Overlaps below a millionth of the pattern's area are rounding in the union, not facets on top of each other.
+        if (flipped > 0 || overlap > 1e-6 * total)
+            throw new UncuttableLayoutException($"the flat layout overlaps itself ({flipped} facet(s) turned over, {overlap:0.#} mm2 of facets lying on others at model scale), so its parts cannot be cut from a sheet; the fitted model is not developable: let the fit converge (raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg) or try other cells");
+
         var partOf = givenParts ?? ChooseSplit(facePolys, neighbours, usableW, usableH, allowance, settings.SpacingMm);
         int partCount = partOf.Length == 0 ? 0 : partOf.Max() + 1;
         var partFaces = Enumerable.Range(0, partCount).Select(p => Enumerable.Range(0, partOf.Length).Where(f => partOf[f] == p).ToArray()).ToArray();
@@ -101,11 +106,11 @@ public static class SheetLayout
         var outlines = new Polygon[partCount];
         for (int p = 0; p < partCount; p++)
         {
-            NtsShape g = UnaryUnionOp.Union(new[] { partPolys[p] }.Concat(tabsOfPart[p]).ToArray());
+            NtsShape g = NtsGeometry.Union(new[] { partPolys[p] }.Concat(tabsOfPart[p]));
             if (settings.KerfMm > 0)
                 g = g.Buffer(settings.KerfMm / 2, new BufferParameters { JoinStyle = JoinStyle.Mitre, MitreLimit = 4 });
             if (g is not Polygon poly)
-                throw new InvalidOperationException($"part {p + 1} outline is not a single polygon ({g.GeometryType})");
+                throw new UncuttableLayoutException($"part {p + 1} does not make one closed outline with its tabs ({g.GeometryType}), so it cannot be cut as one piece");
             if (!poly.IsValid) warnings.Add($"part {p + 1} outline is not a valid polygon");
             outlines[p] = poly;
         }
@@ -466,12 +471,24 @@ public static class SheetLayout
             if (union is Polygon && union.IsValid) return union;
         }
         catch (TopologyException) { }
-        return UnaryUnionOp.Union(faces.Cast<NtsShape>().ToArray());
+        return NtsGeometry.Union(faces);
+    }
+
+    /// <summary>Facets of the layout (model frame, y down) that are turned over or cross themselves, the area
+    /// by which facets lie on each other (sum of facet areas less the area of their union) and the sum, mm2.</summary>
+    private static (int Flipped, double Overlap, double Total) SelfOverlap(Vec2[][] facePolys)
+    {
+        // Faces run counter-clockwise seen from the top; the model frame flips y, so there they run clockwise.
+        int flipped = facePolys.Count(f => !(SignedArea(f) < 0) || !NtsGeometry.Polygon(f).IsValid);
+        double total = facePolys.Sum(f => Math.Abs(SignedArea(f)));
+        if (facePolys.Length == 0) return (0, 0, 0);
+        double union = UnionOfFaces(facePolys.Select(NtsGeometry.Polygon).ToArray()).Area;
+        return (flipped, Math.Max(0, total - union), total);
     }
 
     /// <summary>True when the (slightly shrunk) tab core meets another polygon.</summary>
     private static bool Overlaps(NtsShape core, NtsShape other) =>
-        core.EnvelopeInternal.Intersects(other.EnvelopeInternal) && core.Intersects(other);
+        core.EnvelopeInternal.Intersects(other.EnvelopeInternal) && NtsGeometry.Intersects(core, other);
 
     /// <summary>A seam code inside the facet beside its edge, baseline along the edge, shrunk to fit.</summary>
     private static SheetLabel EdgeLabel(string code, Vec2 p, Vec2 q, Vec2[] facet, double height, Func<Vec2, Vec2> place, int sheet)

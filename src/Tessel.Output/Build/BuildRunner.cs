@@ -1,6 +1,7 @@
 using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
+using Tessel.Core.Sheets;
 using Tessel.Core.Targets;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
@@ -98,9 +99,21 @@ public static class BuildRunner
         SheetStageResult? sheets = null;
         if (job.Outputs.Svg || job.Outputs.Dxf || job.Outputs.Pdf || job.Outputs.Png)
         {
-            sheets = SheetStage.Run(job, checks.Flat, progress);
-            ModelOutputs.AddSheets(output, job, sheets);
-            warnings.AddRange(sheets.Layout.Figures.Warnings);
+            try
+            {
+                sheets = SheetStage.Run(job, checks.Flat, progress);
+                ModelOutputs.AddSheets(output, job, sheets);
+                warnings.AddRange(sheets.Layout.Figures.Warnings);
+            }
+            catch (UncuttableLayoutException e)
+            {
+                // The model, checks and report are still worth writing; only the sheets would be wrong.
+                string why = $"no sheets were written: {e.Message}";
+                output.Problem = output.Problem is null ? why : output.Problem + "; " + why;
+                output.AddFigure("sheets", "refused", e.Message);
+                warnings.Add(why);
+                progress.Step(why);
+            }
         }
         for (int i = 0; i < warnings.Count; i++) output.AddFigure("warnings", $"warning[{i}]", warnings[i]);
 
