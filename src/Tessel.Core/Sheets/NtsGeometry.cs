@@ -50,6 +50,12 @@ internal static class NtsGeometry
         catch (TopologyException) { return UnaryUnionNG.Union(all, Snap); }
     }
 
+    /// <summary>Union of shapes that meet along edges which are not noded alike (a glue tab's root on part of a
+    /// facet's edge): snap-rounded to <see cref="Snap"/>, so touching edges merge instead of leaving a hairline
+    /// gap between pieces.</summary>
+    public static NtsShape UnionSnapped(IEnumerable<NtsShape> shapes) =>
+        UnaryUnionNG.Union(Factory.BuildGeometry(shapes.Select(Repaired).Where(g => !g.IsEmpty).ToArray()), Snap);
+
     /// <summary>True when the shapes meet; on a topology conflict the test is repeated on repaired shapes,
     /// and a pair that still cannot be decided counts as meeting.</summary>
     public static bool Intersects(NtsShape a, NtsShape b)

@@ -18,6 +18,11 @@ public static class SheetLayout
     /// <summary>Which pass of the laser a line belongs to; the enum order is the cutting order.</summary>
     private enum LineJob { Annotation, Label, BackLabel, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
 
+    /// <summary>Least gap, mm, between a glue tab and any other edge or tab of its part once the outline is cut:
+    /// room for the blade or beam to separate them, so a seam is cut over its full length (value from memory).
+    /// The kerf is added on top, since the outline grows by half a kerf on either side of the gap.</summary>
+    public const double TabClearanceMm = 0.5;
+
     /// <summary>Labels smaller than this (cap height, mm) are warned about as hard to read.</summary>
     public const double MinimumLegibleLabelMm = 1.2;
 
@@ -76,6 +81,19 @@ public static class SheetLayout
         var seamTabs = new GlueTab[seamEdges.Length];
         var tabsOfPart = Enumerable.Range(0, partCount).Select(_ => new List<Polygon>()).ToArray();
         var overlappingCodes = new List<string>();
+        double clearance = TabClearanceMm + settings.KerfMm;
+        // Edges on each part's outline (seams and the pattern's own boundary), as segments.
+        var outlineEdges = Enumerable.Range(0, partCount).Select(_ => new List<(int Edge, LineString Segment)>()).ToArray();
+        for (int e = 0; e < mesh.EdgeCount; e++)
+        {
+            int fl = mesh.EdgeFaceLeft[e], fr = mesh.EdgeFaceRight[e];
+            var (a, b) = pattern.Edge(e);
+            var segment = NtsGeometry.Factory.CreateLineString([new Coordinate(model[a].X, model[a].Y), new Coordinate(model[b].X, model[b].Y)]);
+            if (fl < 0 || fr < 0) { outlineEdges[partOf[Math.Max(fl, fr)]].Add((e, segment)); continue; }
+            if (partOf[fl] == partOf[fr]) continue;
+            outlineEdges[partOf[fl]].Add((e, segment));
+            outlineEdges[partOf[fr]].Add((e, segment));
+        }
         for (int s = 0; s < seamEdges.Length; s++)
         {
             int e = seamEdges[s];
@@ -86,11 +104,16 @@ public static class SheetLayout
             foreach (int tabFace in sides)
             {
                 int matingFace = tabFace == fl ? fr : fl;
-                var tab = GlueTab.Build(model[v0], model[v1], facePolys[matingFace], settings.TabWidthMm, settings.TabTaperDegrees * Math.PI / 180, rootOffset);
+                var tab = GlueTab.Build(model[v0], model[v1], facePolys[matingFace], settings.TabWidthMm, settings.TabTaperDegrees * Math.PI / 180, rootOffset, clearance);
                 int part = partOf[tabFace];
-                // Shrunk by a micrometre so that sharing the seam edge with its own face does not count.
-                var core = NtsGeometry.Polygon(tab.Polygon).Buffer(-1e-3);
-                bool overlaps = partFaces[part].Any(f => Overlaps(core, faceShapes[f])) || tabsOfPart[part].Any(o => Overlaps(core, o));
+                // No facet of the part under the tab (shrunk by a micrometre, as it shares its root with its own
+                // facet), and every other outline edge and tab of the part clear by nearly the clearance.
+                var shape = NtsGeometry.Polygon(tab.Polygon);
+                var core = shape.Buffer(-1e-3);
+                double gap = 0.9 * clearance;
+                bool overlaps = partFaces[part].Any(f => Overlaps(core, faceShapes[f]))
+                    || outlineEdges[part].Any(o => o.Edge != e && Near(shape, o.Segment, gap))
+                    || tabsOfPart[part].Any(o => Near(shape, o, gap));
                 if (chosen is null || !overlaps) { chosen = tab; chosenPart = part; clean = !overlaps; }
                 if (!overlaps) break;
             }
@@ -100,13 +123,13 @@ public static class SheetLayout
             if (!clean) overlappingCodes.Add(SeamCode(s));
         }
         if (overlappingCodes.Count > 0)
-            warnings.Add($"{overlappingCodes.Count} glue tab(s) overlap their own part or another tab: seams {string.Join(", ", overlappingCodes)}");
+            warnings.Add($"{overlappingCodes.Count} glue tab(s) overlap or come within {clearance:0.##} mm of their own part or another tab: seams {string.Join(", ", overlappingCodes)}");
 
         // Outlines: part plus tabs, grown by half the kerf with sharp corners kept.
         var outlines = new Polygon[partCount];
         for (int p = 0; p < partCount; p++)
         {
-            NtsShape g = NtsGeometry.Union(new[] { partPolys[p] }.Concat(tabsOfPart[p]));
+            NtsShape g = NtsGeometry.UnionSnapped(new[] { partPolys[p] }.Concat(tabsOfPart[p]));
             if (settings.KerfMm > 0)
                 g = g.Buffer(settings.KerfMm / 2, new BufferParameters { JoinStyle = JoinStyle.Mitre, MitreLimit = 4 });
             if (g is not Polygon poly)
@@ -489,6 +512,16 @@ public static class SheetLayout
     /// <summary>True when the (slightly shrunk) tab core meets another polygon.</summary>
     private static bool Overlaps(NtsShape core, NtsShape other) =>
         core.EnvelopeInternal.Intersects(other.EnvelopeInternal) && NtsGeometry.Intersects(core, other);
+
+    /// <summary>True when two shapes come closer than <paramref name="gap"/> (or overlap).</summary>
+    private static bool Near(NtsShape a, NtsShape b, double gap)
+    {
+        var env = new Envelope(a.EnvelopeInternal);
+        env.ExpandBy(gap);
+        if (!env.Intersects(b.EnvelopeInternal)) return false;
+        try { return a.IsWithinDistance(b, gap); }
+        catch (TopologyException) { return true; }
+    }
 
     /// <summary>A seam code inside the facet beside its edge, baseline along the edge, shrunk to fit.</summary>
     private static SheetLabel EdgeLabel(string code, Vec2 p, Vec2 q, Vec2[] facet, double height, Func<Vec2, Vec2> place, int sheet)
