@@ -65,7 +65,7 @@ public static class SheetLayout
         var (flipped, overlap, total) = SelfOverlap(facePolys);
         // Overlaps below a millionth of the pattern's area are rounding in the union, not facets on top of each other.
         if (flipped > 0 || overlap > 1e-6 * total)
-            throw new UncuttableLayoutException($"the flat layout overlaps itself ({flipped} facet(s) turned over, {overlap:0.#} mm2 of facets lying on others at model scale), so its parts cannot be cut from a sheet; the fitted model is not developable: let the fit converge (raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg) or try other cells");
+            throw new UncuttableLayoutException($"the flat layout overlaps itself ({flipped} facet(s) turned over, {overlap:0.#} mm2 of facets lying on others at model scale), so its parts cannot be cut from a sheet; a facet of the fitted model is folded over or crossed: let the fit converge (raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg) or try other cells or fold depth");
 
         var partOf = givenParts ?? ChooseSplit(facePolys, neighbours, usableW, usableH, allowance, settings.SpacingMm);
         int partCount = partOf.Length == 0 ? 0 : partOf.Max() + 1;
