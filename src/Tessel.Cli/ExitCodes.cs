@@ -7,7 +7,8 @@ public static class ExitCodes
     public const int Ok = 0;
     /// <summary>Bad input or usage: job file, input files or command-line options; one line on stderr says which and how to fix it.</summary>
     public const int BadInput = 1;
-    /// <summary>The fit did not converge and --accept-unconverged was not given.</summary>
+    /// <summary>The model could not be finished: the fit did not converge and --accept-unconverged was not given,
+    /// a stage broke down numerically (the line names it), or the flat layout overlaps itself and no sheets were written.</summary>
     public const int NotConverged = 2;
     /// <summary>The output folder could not be created or written.</summary>
     public const int OutputNotWritable = 3;

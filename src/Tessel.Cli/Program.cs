@@ -47,7 +47,7 @@ public static class Program
             stderr.WriteLine($"tessel: {e.Message}");
             return ExitCodes.BadInput;
         }
-        catch (FitBreakdownError e)
+        catch (StageBreakdownError e)
         {
             stderr.WriteLine($"tessel: {e.Message}");
             return ExitCodes.NotConverged;

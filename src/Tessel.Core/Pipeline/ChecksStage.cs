@@ -17,7 +17,8 @@ public sealed record ChecksStageResult(
     FlatStrainResult Strain,
     int ShortEdgeCount,
     double ShortestEdgeMm,
-    EnvelopeCurvature? Envelope = null)
+    EnvelopeCurvature? Envelope = null,
+    FoldBoundCount? FoldBounds = null)
 {
     /// <summary>Panel pairs that collide at the fitted state or at any kept state of the path.</summary>
     public int CollisionCount => FittedCollisions.Count + PathCollisions.Sum(f => f.Collisions.Count);
@@ -27,27 +28,56 @@ public sealed record ChecksStageResult(
 /// degrees of freedom, rigid folding path, collisions, fold-angle table and flat-layout strain.</summary>
 public static class ChecksStage
 {
+    private static bool IsFlat(CreaseMesh mesh)
+    {
+        for (int e = 0; e < mesh.EdgeCount; e++)
+            if (mesh.IsInterior(e) && Math.Abs(mesh.FoldAngle(e)) > 1e-9) return false;
+        return true;
+    }
+
+    private static FoldingPathResult FlatPath(CreaseMesh mesh, int degreesOfFreedom)
+    {
+        const string why = "the fitted model has no fold: it is flat already";
+        return new FoldingPathResult(degreesOfFreedom, true, 0, 1, 0, 0, 0, 0, why, why,
+            [new FoldingKeyframe(0, 0, (double[])mesh.Positions.Clone(), 0), new FoldingKeyframe(1, 0, (double[])mesh.Positions.Clone(), 0)],
+            TimeSpan.Zero);
+    }
+
+    /// <summary>Runs one step, turning a numerical breakdown inside it into a one-line error naming the step.</summary>
+    private static T Guard<T>(string step, Func<T> run)
+    {
+        try { return run(); }
+        catch (Exception e) when (e is NotPositiveDefiniteException or ArithmeticException)
+        {
+            throw new StageBreakdownError(step.StartsWith("unfold", StringComparison.Ordinal) ? "unfold" : "checks",
+                $"{step} broke down on the fitted model: {e.Message}; the fit left a degenerate or singular model, try other cell counts or cellSize", e);
+        }
+    }
+
     /// <param name="envelope">The family's envelope builder (<see cref="GeneratedPattern.Envelope"/>), or null.</param>
     public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress,
         Func<CreaseMesh, CreaseMesh>? envelope = null)
     {
         progress.Stage("unfold", "developing the fitted pattern to the plane");
-        var flat = MeshUnfolder.Unfold(fitted, new AutoSolver());
+        var flat = Guard("unfolding", () => MeshUnfolder.Unfold(fitted, new AutoSolver()));
         double maxEdgeStrain = flat.EdgeStrain.Length == 0 ? 0 : flat.EdgeStrain.Max(Math.Abs);
         progress.Step($"largest edge length error {maxEdgeStrain * 100:0.####} %");
 
         progress.Stage("checks", "degrees of freedom");
-        var rigidity = RigidityAnalysis.DegreesOfFreedom(fitted);
+        var rigidity = Guard("the degree-of-freedom check", () => RigidityAnalysis.DegreesOfFreedom(fitted));
         progress.Step($"DOF {rigidity.DegreesOfFreedom} (rank {rigidity.Rank} of {rigidity.Unknowns}, gap {rigidity.GapRatio:0.##E+0}, {rigidity.Method})");
 
         progress.Step("rigid folding path toward flat and further folded");
-        var path = RigidFoldingPath.Simulate(fitted);
+        // A model with no fold has no folding path to follow: it is its own flat state.
+        var path = IsFlat(fitted) ? FlatPath(fitted, rigidity.DegreesOfFreedom)
+            : Guard("the folding-path check", () => RigidFoldingPath.Simulate(fitted));
         progress.Step($"progress {path.LowestProgress:0.###} to {path.HighestProgress:0.###}, near-flat {(path.ReachedNearFlat ? "reached" : "not reached")}, drift {path.MaxBarStrain:0.##E+0}");
 
         progress.Step("panel collisions");
         var fittedCollisions = PanelCollisions.Find(fitted);
         var pathCollisions = PanelCollisions.AlongPath(fitted, path);
         var foldAngles = FoldAngleTable.Build(fitted, job.Fabrication.Scale);
+        var foldBounds = FoldRoles.Bounds(fitted, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg);
         var strain = FlatLayoutStrain.Measure(flat, strainLimit);
 
         double minMm = job.Fitting.Bounds.MinEdgeLengthMm, shortest = double.PositiveInfinity;
@@ -68,6 +98,6 @@ public static class ChecksStage
             if (curvature is not null)
                 progress.Step($"envelope angle defects {curvature.MinDefect:0.###E+0} to {curvature.MaxDefect:0.###E+0} rad, positive at {curvature.Positive} of {curvature.Interior}");
         }
-        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest, curvature);
+        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest, curvature, foldBounds);
     }
 }

@@ -1,3 +1,4 @@
+using Tessel.Core.Checks;
 using Tessel.Core.Fitting;
 using Tessel.Core.Fitting.Sparse;
 using Tessel.Core.Jobs;
@@ -9,7 +10,8 @@ namespace Tessel.Core.Pipeline;
 /// <summary>The chosen fit and, when a sweep ran, the shape-error / developability trade-off.</summary>
 /// <param name="Fit">Fit at the job's epsilon (best of the starts).</param>
 /// <param name="Front">Pareto points of the sweep in epsilon order; empty without a sweep.</param>
-public sealed record FitStageResult(FitResult Fit, IReadOnlyList<ParetoPoint> Front);
+/// <param name="RolesChanged">Creases whose role the fitted geometry changed from the generator's (see <see cref="FoldRoles"/>).</param>
+public sealed record FitStageResult(FitResult Fit, IReadOnlyList<ParetoPoint> Front, int RolesChanged = 0);
 
 /// <summary>Third stage: draped pattern -> fitted pattern by the epsilon-constraint method.</summary>
 public static class FitStage
@@ -49,7 +51,12 @@ public static class FitStage
         }
         if (!fit.Mesh.Positions.All(double.IsFinite))
             throw new FitBreakdownError("the fit produced non-finite vertex positions; check the target's size and units and the tessellation's cell size", new ArithmeticException());
+        // Roles come from the fitted geometry, whatever the generator assumed: the sheets must fold what the fit made.
+        var relabelled = FoldRoles.FromGeometry(fit.Mesh);
+        int changed = FoldRoles.Changed(fit.Mesh, relabelled);
+        fit = fit with { Mesh = relabelled };
         progress.Step($"{Verdict(fit)} after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, largest constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
+        if (changed > 0) progress.Step($"{changed} crease role(s) taken from the fitted fold angles instead of the generator's");
 
         var front = new List<ParetoPoint>();
         var sweep = job.Fitting.EpsilonSweepDeg;
@@ -68,7 +75,7 @@ public static class FitStage
             foreach (var p in front)
                 progress.Step($"  epsilon {p.EpsilonDeg:0.###} deg: shape RMS {p.ShapeRms * 1000:0.###} mm{(p.Converged ? "" : " (not converged)")}");
         }
-        return new FitStageResult(fit, front);
+        return new FitStageResult(fit, front, changed);
     }
 
     private static int ShortEdges(CreaseMesh mesh, double minimum)

@@ -71,7 +71,7 @@ public static class SheetStage
         var plain = SettingsFor(job);
         var stripContent = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false);
         double stripWidth = plain.Sheet.WidthMm - 2 * plain.MarginMm;
-        var classes = new[] { LineClass.CutOutline, LineClass.Mountain, LineClass.Valley, LineClass.TabFold, LineClass.Label };
+        var classes = new[] { LineClass.CutOutline, LineClass.Mountain, LineClass.Valley, LineClass.FlatCrease, LineClass.TabFold, LineClass.Label };
         double strip = SheetAnnotations.RequiredStripHeight(stripWidth, stripContent, styles, classes);
         var settings = SettingsFor(job, strip);
         // Perforation dashes stay on their fold's layer (so the maker still sees mountain from valley);

@@ -42,6 +42,12 @@ public static class TessellationStage
         {
             var pattern = FamilyGenerators.Generate(spec.Family, target, p);
             progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
+            // Facets joined only at corners cannot be laid flat as one sheet (nor folded as one): say so here,
+            // where the cells meet the footprint, rather than as a singular system in the unfolding.
+            int pieces = Unfolding.MeshUnfolder.Pieces(pattern.Mesh);
+            if (pieces > 1)
+                throw new JobError(spec.CellsX is null && spec.CellSize is not null ? "tessellation.cellSize" : "tessellation.cellsX",
+                    $"the {spec.Family} pattern falls into {pieces} pieces on this footprint (facets meet only at corners where the footprint narrows); use smaller cells (more cellsX and cellsY) or a wider footprint");
             return new TessellationStageResult(pattern, null, advice) { DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)

@@ -26,7 +26,7 @@ public sealed class LineStyleTable
     /// stay in place until its outline is cut.</summary>
     public static IReadOnlyList<LineClass> FabricationOrder { get; } =
     [
-        LineClass.Annotation, LineClass.Label, LineClass.TabFold, LineClass.Valley,
+        LineClass.Annotation, LineClass.FlatCrease, LineClass.Label, LineClass.TabFold, LineClass.Valley,
         LineClass.Mountain, LineClass.CutInner, LineClass.CutOutline,
     ];
 
@@ -70,6 +70,8 @@ public sealed class LineStyleTable
         [LineClass.TabFold] = new("Glue tab fold", "TS-CREASE-TAB", "#3F9A3B", 3, [24, 3, 0.5, 3, 0.5, 3], LineOperation.Score), // 116
         [LineClass.Label] = new("Label (marked)", "TS-MARK-TEXT", "#C49420", 30, [], LineOperation.Mark),                // 149
         [LineClass.Annotation] = new("Notes (print only)", "TS-NOTE-PRINT", "#34404C", 8, [], LineOperation.DrawOnly),  // 62
+        // Short dashes with long gaps, unlike every fold's pattern, so a flat crease never reads as a fold on a grey print.
+        [LineClass.FlatCrease] = new("Flat crease (leave unfolded)", "TS-CREASE-FLAT", "#8C8C8C", 9, [2, 4], LineOperation.DrawOnly), // 140
     }, DefaultStrokeWidthMm, DefaultDashUnitMm);
 
     /// <summary>A copy with one class's style replaced.</summary>

@@ -18,6 +18,11 @@ public static class SheetLayout
     /// <summary>Which pass of the laser a line belongs to; the enum order is the cutting order.</summary>
     private enum LineJob { Annotation, Label, BackLabel, Score, BackScore, PerforationCut, InnerCut, OutlineCut }
 
+    /// <summary>Least gap, mm, between a glue tab and any other edge or tab of its part once the outline is cut:
+    /// room for the blade or beam to separate them, so a seam is cut over its full length (value from memory).
+    /// The kerf is added on top, since the outline grows by half a kerf on either side of the gap.</summary>
+    public const double TabClearanceMm = 0.5;
+
     /// <summary>Labels smaller than this (cap height, mm) are warned about as hard to read.</summary>
     public const double MinimumLegibleLabelMm = 1.2;
 
@@ -57,6 +62,11 @@ public static class SheetLayout
             if (mesh.IsInterior(e)) { neighbourSets[mesh.EdgeFaceLeft[e]].Add(mesh.EdgeFaceRight[e]); neighbourSets[mesh.EdgeFaceRight[e]].Add(mesh.EdgeFaceLeft[e]); }
         var neighbours = neighbourSets.Select(s => s.ToArray()).ToArray();
 
+        var (flipped, overlap, total) = SelfOverlap(facePolys);
+        // Overlaps below a millionth of the pattern's area are rounding in the union, not facets on top of each other.
+        if (flipped > 0 || overlap > 1e-6 * total)
+            throw new UncuttableLayoutException($"the flat layout overlaps itself ({flipped} facet(s) turned over, {overlap:0.#} mm2 of facets lying on others at model scale), so its parts cannot be cut from a sheet; a facet of the fitted model is folded over or crossed: let the fit converge (raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg) or try other cells or fold depth");
+
         var partOf = givenParts ?? ChooseSplit(facePolys, neighbours, usableW, usableH, allowance, settings.SpacingMm);
         int partCount = partOf.Length == 0 ? 0 : partOf.Max() + 1;
         var partFaces = Enumerable.Range(0, partCount).Select(p => Enumerable.Range(0, partOf.Length).Where(f => partOf[f] == p).ToArray()).ToArray();
@@ -71,6 +81,19 @@ public static class SheetLayout
         var seamTabs = new GlueTab[seamEdges.Length];
         var tabsOfPart = Enumerable.Range(0, partCount).Select(_ => new List<Polygon>()).ToArray();
         var overlappingCodes = new List<string>();
+        double clearance = TabClearanceMm + settings.KerfMm;
+        // Edges on each part's outline (seams and the pattern's own boundary), as segments.
+        var outlineEdges = Enumerable.Range(0, partCount).Select(_ => new List<(int Edge, LineString Segment)>()).ToArray();
+        for (int e = 0; e < mesh.EdgeCount; e++)
+        {
+            int fl = mesh.EdgeFaceLeft[e], fr = mesh.EdgeFaceRight[e];
+            var (a, b) = pattern.Edge(e);
+            var segment = NtsGeometry.Factory.CreateLineString([new Coordinate(model[a].X, model[a].Y), new Coordinate(model[b].X, model[b].Y)]);
+            if (fl < 0 || fr < 0) { outlineEdges[partOf[Math.Max(fl, fr)]].Add((e, segment)); continue; }
+            if (partOf[fl] == partOf[fr]) continue;
+            outlineEdges[partOf[fl]].Add((e, segment));
+            outlineEdges[partOf[fr]].Add((e, segment));
+        }
         for (int s = 0; s < seamEdges.Length; s++)
         {
             int e = seamEdges[s];
@@ -81,11 +104,16 @@ public static class SheetLayout
             foreach (int tabFace in sides)
             {
                 int matingFace = tabFace == fl ? fr : fl;
-                var tab = GlueTab.Build(model[v0], model[v1], facePolys[matingFace], settings.TabWidthMm, settings.TabTaperDegrees * Math.PI / 180, rootOffset);
+                var tab = GlueTab.Build(model[v0], model[v1], facePolys[matingFace], settings.TabWidthMm, settings.TabTaperDegrees * Math.PI / 180, rootOffset, clearance);
                 int part = partOf[tabFace];
-                // Shrunk by a micrometre so that sharing the seam edge with its own face does not count.
-                var core = NtsGeometry.Polygon(tab.Polygon).Buffer(-1e-3);
-                bool overlaps = partFaces[part].Any(f => Overlaps(core, faceShapes[f])) || tabsOfPart[part].Any(o => Overlaps(core, o));
+                // No facet of the part under the tab (shrunk by a micrometre, as it shares its root with its own
+                // facet), and every other outline edge and tab of the part clear by nearly the clearance.
+                var shape = NtsGeometry.Polygon(tab.Polygon);
+                var core = shape.Buffer(-1e-3);
+                double gap = 0.9 * clearance;
+                bool overlaps = partFaces[part].Any(f => Overlaps(core, faceShapes[f]))
+                    || outlineEdges[part].Any(o => o.Edge != e && Near(shape, o.Segment, gap))
+                    || tabsOfPart[part].Any(o => Near(shape, o, gap));
                 if (chosen is null || !overlaps) { chosen = tab; chosenPart = part; clean = !overlaps; }
                 if (!overlaps) break;
             }
@@ -95,17 +123,17 @@ public static class SheetLayout
             if (!clean) overlappingCodes.Add(SeamCode(s));
         }
         if (overlappingCodes.Count > 0)
-            warnings.Add($"{overlappingCodes.Count} glue tab(s) overlap their own part or another tab: seams {string.Join(", ", overlappingCodes)}");
+            warnings.Add($"{overlappingCodes.Count} glue tab(s) overlap or come within {clearance:0.##} mm of their own part or another tab: seams {string.Join(", ", overlappingCodes)}");
 
         // Outlines: part plus tabs, grown by half the kerf with sharp corners kept.
         var outlines = new Polygon[partCount];
         for (int p = 0; p < partCount; p++)
         {
-            NtsShape g = UnaryUnionOp.Union(new[] { partPolys[p] }.Concat(tabsOfPart[p]).ToArray());
+            NtsShape g = NtsGeometry.UnionSnapped(new[] { partPolys[p] }.Concat(tabsOfPart[p]));
             if (settings.KerfMm > 0)
                 g = g.Buffer(settings.KerfMm / 2, new BufferParameters { JoinStyle = JoinStyle.Mitre, MitreLimit = 4 });
             if (g is not Polygon poly)
-                throw new InvalidOperationException($"part {p + 1} outline is not a single polygon ({g.GeometryType})");
+                throw new UncuttableLayoutException($"part {p + 1} does not make one closed outline with its tabs ({g.GeometryType}), so it cannot be cut as one piece");
             if (!poly.IsValid) warnings.Add($"part {p + 1} outline is not a valid polygon");
             outlines[p] = poly;
         }
@@ -185,9 +213,15 @@ public static class SheetLayout
             int fl = mesh.EdgeFaceLeft[e], fr = mesh.EdgeFaceRight[e];
             if (partOf[fl] != partOf[fr]) continue;
             var role = pattern.Role(e);
-            if (settings.MethodFor(role) is not FoldMethod method) continue;
             var (v0, v1) = pattern.Edge(e);
             int part = partOf[fl];
+            // A crease the fitted model leaves flat is shown, so the facet edges stay visible, but never folded.
+            if (role == CreaseRole.Flat)
+            {
+                lines.Add(new PendingLine(part, e, LineClass.FlatCrease, [Place(part, model[v0]), Place(part, model[v1])], false, LineJob.Annotation));
+                continue;
+            }
+            if (settings.MethodFor(role) is not FoldMethod method) continue;
             AddFold(part, e, role == CreaseRole.Mountain ? LineClass.Mountain : LineClass.Valley, method, Place(part, model[v0]), Place(part, model[v1]));
         }
 
@@ -460,12 +494,34 @@ public static class SheetLayout
             if (union is Polygon && union.IsValid) return union;
         }
         catch (TopologyException) { }
-        return UnaryUnionOp.Union(faces.Cast<NtsShape>().ToArray());
+        return NtsGeometry.Union(faces);
+    }
+
+    /// <summary>Facets of the layout (model frame, y down) that are turned over or cross themselves, the area
+    /// by which facets lie on each other (sum of facet areas less the area of their union) and the sum, mm2.</summary>
+    private static (int Flipped, double Overlap, double Total) SelfOverlap(Vec2[][] facePolys)
+    {
+        // Faces run counter-clockwise seen from the top; the model frame flips y, so there they run clockwise.
+        int flipped = facePolys.Count(f => !(SignedArea(f) < 0) || !NtsGeometry.Polygon(f).IsValid);
+        double total = facePolys.Sum(f => Math.Abs(SignedArea(f)));
+        if (facePolys.Length == 0) return (0, 0, 0);
+        double union = UnionOfFaces(facePolys.Select(NtsGeometry.Polygon).ToArray()).Area;
+        return (flipped, Math.Max(0, total - union), total);
     }
 
     /// <summary>True when the (slightly shrunk) tab core meets another polygon.</summary>
     private static bool Overlaps(NtsShape core, NtsShape other) =>
-        core.EnvelopeInternal.Intersects(other.EnvelopeInternal) && core.Intersects(other);
+        core.EnvelopeInternal.Intersects(other.EnvelopeInternal) && NtsGeometry.Intersects(core, other);
+
+    /// <summary>True when two shapes come closer than <paramref name="gap"/> (or overlap).</summary>
+    private static bool Near(NtsShape a, NtsShape b, double gap)
+    {
+        var env = new Envelope(a.EnvelopeInternal);
+        env.ExpandBy(gap);
+        if (!env.Intersects(b.EnvelopeInternal)) return false;
+        try { return a.IsWithinDistance(b, gap); }
+        catch (TopologyException) { return true; }
+    }
 
     /// <summary>A seam code inside the facet beside its edge, baseline along the edge, shrunk to fit.</summary>
     private static SheetLabel EdgeLabel(string code, Vec2 p, Vec2 q, Vec2[] facet, double height, Func<Vec2, Vec2> place, int sheet)
@@ -536,14 +592,14 @@ public static class SheetLayout
     }
 
     /// <summary>Beam-off travel through a job: from the sheet's corner to each line's start in order.
-    /// Annotation lines are drawn, not lasered, and are skipped.</summary>
+    /// Annotation and flat-crease lines are drawn, not lasered, and are skipped.</summary>
     internal static double TravelLength(IEnumerable<SheetLine> job)
     {
         var at = Vec2.Zero;
         double travel = 0;
         foreach (var l in job)
         {
-            if (l.Class == LineClass.Annotation || l.Points.Length == 0) continue;
+            if (l.Class is LineClass.Annotation or LineClass.FlatCrease || l.Points.Length == 0) continue;
             travel += (l.Points[0] - at).Length;
             at = l.Closed ? l.Points[0] : l.Points[^1];
         }

@@ -19,6 +19,9 @@ public enum LineClass
     Label,
     /// <summary>Drawn only, never cut: legend, scale bar, cautions, sheet frame.</summary>
     Annotation,
+    /// <summary>A crease the fitted model leaves flat (within <see cref="Checks.FoldRoles.FlatToleranceDeg"/>):
+    /// drawn so the maker sees the facet edge, never folded, scored or cut.</summary>
+    FlatCrease,
 }
 
 /// <summary>An open or closed polyline on a sheet, in millimetres, origin at the sheet's top-left

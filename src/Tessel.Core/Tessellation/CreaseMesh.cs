@@ -84,19 +84,28 @@ public sealed class CreaseMesh
         }
     }
 
-    private CreaseMesh(CreaseMesh source, double[] positions)
+    private CreaseMesh(CreaseMesh source, double[] positions, CreaseRole[] roles)
     {
         Family = source.Family; Faces = source.Faces; Layers = source.Layers;
         EdgeVertices = source.EdgeVertices; EdgeFaceLeft = source.EdgeFaceLeft;
-        EdgeFaceRight = source.EdgeFaceRight; EdgeRoles = source.EdgeRoles;
+        EdgeFaceRight = source.EdgeFaceRight; EdgeRoles = roles;
         Positions = positions;
+    }
+
+    /// <summary>The same pattern with other edge roles (one per edge; boundary edges must stay boundary).</summary>
+    public CreaseMesh WithRoles(CreaseRole[] roles)
+    {
+        if (roles.Length != EdgeCount) throw new ArgumentException("one role per edge");
+        for (int e = 0; e < EdgeCount; e++)
+            if ((roles[e] == CreaseRole.Boundary) != !IsInterior(e)) throw new ArgumentException($"edge {e}: only outline edges are boundary");
+        return new CreaseMesh(this, Positions, roles);
     }
 
     /// <summary>The same pattern with other vertex positions (topology and roles shared).</summary>
     public CreaseMesh WithPositions(double[] positions)
     {
         if (positions.Length != Positions.Length) throw new ArgumentException("vertex count must not change");
-        return new CreaseMesh(this, positions);
+        return new CreaseMesh(this, positions, EdgeRoles);
     }
 
     public Vec3 Vertex(int i) => Vec3.Read(Positions, i);

@@ -15,12 +15,17 @@ public static class MeshUnfolder
     /// <summary>The flat pattern; strain per edge is (flat - folded) / folded.</summary>
     /// <param name="solver">SPD solver for the flattening; default the fitter's default solver.</param>
     /// <param name="strainTolerance">Largest |strain| accepted from the tree layout before flattening.</param>
+    /// <exception cref="ArithmeticException">The folded mesh has a non-finite position, an edge or quad diagonal of
+    /// zero length or a facet of zero area (nothing to lay flat), or the flattening produced non-finite positions.</exception>
     public static FlatPattern Unfold(CreaseMesh mesh, ISpdSolver? solver = null, double strainTolerance = 1e-12)
     {
+        CheckDevelopable(mesh);
         var flat = TreeLayout(mesh, out int anchor, out int direction);
         var (pairs, lengths) = LengthPairs(mesh);
         if (MaxStrain(flat, pairs, lengths) > strainTolerance)
             Flatten(flat, pairs, lengths, anchor, direction, solver ?? EpsilonConstraintFitter.DefaultSolver());
+        int bad = Array.FindIndex(flat, c => !double.IsFinite(c));
+        if (bad >= 0) throw new ArithmeticException($"the flattening gave vertex {bad / 2} a non-finite position");
         var strain = new double[mesh.EdgeCount];
         for (int e = 0; e < mesh.EdgeCount; e++)
         {
@@ -29,6 +34,45 @@ public static class MeshUnfolder
             strain[e] = (Dist(flat, a, b) - folded) / folded;
         }
         return new FlatPattern(mesh, flat, strain);
+    }
+
+    /// <summary>Number of pieces of the pattern: groups of facets connected across shared edges (not corners).</summary>
+    public static int Pieces(CreaseMesh mesh)
+    {
+        var parent = Enumerable.Range(0, mesh.FaceCount).ToArray();
+        int Find(int f) { while (parent[f] != f) f = parent[f] = parent[parent[f]]; return f; }
+        for (int e = 0; e < mesh.EdgeCount; e++)
+            if (mesh.IsInterior(e)) parent[Find(mesh.EdgeFaceLeft[e])] = Find(mesh.EdgeFaceRight[e]);
+        int pieces = 0;
+        for (int f = 0; f < mesh.FaceCount; f++) if (Find(f) == f) pieces++;
+        return pieces;
+    }
+
+    /// <summary>Throws when the folded mesh has nothing well defined to lay flat: non-finite positions, edges or
+    /// quad diagonals shorter than a millionth of the mean edge, or facets whose area is under a millionth of the
+    /// mean edge squared (their plane, and so their flat shape, is undefined).</summary>
+    private static void CheckDevelopable(CreaseMesh mesh)
+    {
+        int pieces = Pieces(mesh);
+        if (pieces > 1) throw new ArithmeticException($"the pattern falls into {pieces} pieces that share no crease, so no one flat layout holds them");
+        int nonFinite = Array.FindIndex(mesh.Positions, c => !double.IsFinite(c));
+        if (nonFinite >= 0) throw new ArithmeticException($"vertex {nonFinite / 3} of the folded model has a non-finite position");
+        double mean = 0;
+        for (int e = 0; e < mesh.EdgeCount; e++) mean += (mesh.Vertex(mesh.EdgeVertices[2 * e + 1]) - mesh.Vertex(mesh.EdgeVertices[2 * e])).Length;
+        mean /= Math.Max(1, mesh.EdgeCount);
+        var (pairs, lengths) = LengthPairs(mesh);
+        for (int k = 0; k < lengths.Length; k++)
+            if (!(lengths[k] > 1e-6 * mean))
+                throw new ArithmeticException($"vertices {pairs[2 * k]} and {pairs[2 * k + 1]} of the folded model coincide (distance {lengths[k]:0.###E+0} m)");
+        for (int f = 0; f < mesh.FaceCount; f++)
+        {
+            var face = mesh.Faces[f];
+            var sum = Vec3.Zero;
+            var o = mesh.Vertex(face[0]);
+            for (int k = 1; k + 1 < face.Length; k++) sum += Vec3.Cross(mesh.Vertex(face[k]) - o, mesh.Vertex(face[k + 1]) - o);
+            if (!(sum.Length / 2 > 1e-6 * mean * mean))
+                throw new ArithmeticException($"facet {f} of the folded model has no area (its corners are in a line)");
+        }
     }
 
     /// <summary>#V*2 positions from laying every face flat across the spanning tree; vertices keep

@@ -1,5 +1,7 @@
+using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
+using Tessel.Core.Sheets;
 using Tessel.Core.Targets;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
@@ -93,6 +95,8 @@ public static class BuildRunner
         if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
         if (checks.Strain.FacetsOverLimit.Length > 0)
             warnings.Add($"{checks.Strain.FacetsOverLimit.Length} facet(s) need more than the material's {strainLimit * 100:0.##} % strain to lie flat (largest {checks.Strain.MaxStrain * 100:0.###} %)");
+        if (checks.FoldBounds is { Violations: > 0 } fb)
+            warnings.Add($"{fb.Violations} fold(s) outside fitting.bounds fold angles {Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0):0.###} to {job.Fitting.Bounds.MaxFoldAngleDeg:0.###} deg ({fb.BelowMinimum} below, {fb.AboveMaximum} above; worst by {fb.MaxViolationRad * 180 / Math.PI:0.###} deg); creases under {FoldRoles.FlatToleranceDeg} deg are drawn flat");
         if (checks.ShortEdgeCount > 0)
             warnings.Add($"{checks.ShortEdgeCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestEdgeMm:0.##} mm)");
         if (tessellation.Pattern.PromisesSynclasticEnvelope && checks.Envelope is { Synclastic: false } env)
@@ -103,13 +107,25 @@ public static class BuildRunner
         SheetStageResult? sheets = null;
         if (job.Outputs.Svg || job.Outputs.Dxf || job.Outputs.Pdf || job.Outputs.Png)
         {
-            sheets = SheetStage.Run(job, checks.Flat, progress);
-            ModelOutputs.AddSheets(output, job, sheets);
-            warnings.AddRange(sheets.Layout.Figures.Warnings);
-            if (job.Outputs.Png && SheetLimits.PngNote(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) is { } note)
-                warnings.Add(note);
-            if (job.Outputs.Png)
-                output.AddFigure("sheets", "pngDpi", (long)(SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi));
+            try
+            {
+                sheets = SheetStage.Run(job, checks.Flat, progress);
+                ModelOutputs.AddSheets(output, job, sheets);
+                warnings.AddRange(sheets.Layout.Figures.Warnings);
+                if (job.Outputs.Png && SheetLimits.PngNote(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) is { } note)
+                    warnings.Add(note);
+                if (job.Outputs.Png)
+                    output.AddFigure("sheets", "pngDpi", (long)(SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi));
+            }
+            catch (UncuttableLayoutException e)
+            {
+                // The model, checks and report are still worth writing; only the sheets would be wrong.
+                string why = $"no sheets were written: {e.Message}";
+                output.Problem = output.Problem is null ? why : output.Problem + "; " + why;
+                output.AddFigure("sheets", "refused", e.Message);
+                warnings.Add(why);
+                progress.Step(why);
+            }
         }
         for (int i = 0; i < warnings.Count; i++) output.AddFigure("warnings", $"warning[{i}]", warnings[i]);
 

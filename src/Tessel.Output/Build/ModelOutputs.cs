@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using Tessel.Core.Checks;
 using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
@@ -44,7 +45,11 @@ public static class ModelOutputs
         output.AddFigure("fit", "maxDevelopabilityExcessRad", fit.Residuals.MaxDevelopabilityExcess);
         output.AddFigure("fit", "maxKawasakiRad", fit.Residuals.MaxKawasaki);
         output.AddFigure("fit", "maxPlanarityScaled", fit.Residuals.MaxPlanarity);
-        output.AddFigure("fit", "maxBoundViolation", fit.Residuals.MaxBoundViolation);
+        // The fitter only sees the fold-angle bounds of families that constrain fold signs; the figure also
+        // takes the folds of the fitted geometry that miss the bounds, so it never reads 0 while one does.
+        var folds = FoldRoles.Bounds(mesh, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg);
+        output.AddFigure("fit", "maxBoundViolation", Math.Max(fit.Residuals.MaxBoundViolation, folds.MaxViolationRad));
+        output.AddFigure("fit", "rolesFromFittedGeometry", (long)stage.RolesChanged);
         output.AddFigure("fit", "linearSolver", fit.Solver.Method);
         output.AddFigure("fit", "linearSolves", (long)fit.Solver.LinearSolves);
         output.AddFigure("fit", "linearIterations", fit.Solver.LinearIterations);
@@ -95,6 +100,14 @@ public static class ModelOutputs
         output.AddFigure("checks", "facetsOverStrainLimit", (long)checks.Strain.FacetsOverLimit.Length);
         output.AddFigure("checks", "shortestEdgeMm", checks.ShortestEdgeMm);
         output.AddFigure("checks", "edgesBelowMinimumLength", (long)checks.ShortEdgeCount);
+        if (checks.FoldBounds is { } fb)
+        {
+            output.AddFigure("checks", "folds", (long)fb.Folds);
+            output.AddFigure("checks", "flatCreases", (long)fb.FlatCreases);
+            output.AddFigure("checks", "foldsBelowMinFoldAngle", (long)fb.BelowMinimum);
+            output.AddFigure("checks", "foldsAboveMaxFoldAngle", (long)fb.AboveMaximum);
+            output.AddFigure("checks", "maxFoldAngleBoundViolationDeg", fb.MaxViolationRad * 180 / Math.PI);
+        }
         if (checks.Envelope is { } envelope)
         {
             output.AddFigure("checks", "envelopeMinDefectRad", envelope.MinDefect);
@@ -210,6 +223,7 @@ public static class ModelOutputs
                 CreaseRole.Mountain => LineClass.Mountain,
                 CreaseRole.Valley => LineClass.Valley,
                 CreaseRole.Boundary => LineClass.CutOutline,
+                CreaseRole.Flat => LineClass.FlatCrease,
                 _ => (LineClass?)null,
             };
             if (cls is null) continue;

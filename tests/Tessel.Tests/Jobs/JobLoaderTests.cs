@@ -40,7 +40,7 @@ public class JobLoaderTests
         // ISO 216 A3 is 297 x 420 mm (shared/reference/fabrication.md).
         Assert.Equal(297, job.Fabrication.Sheet.WidthMm);
         Assert.Equal(420, job.Fabrication.Sheet.HeightMm);
-        Assert.Equal(7, job.Fabrication.Layers.Count);
+        Assert.Equal(8, job.Fabrication.Layers.Count);
         Assert.True(job.Outputs.Obj && job.Outputs.Png && !job.Outputs.Stl);
     }
 

@@ -53,7 +53,7 @@ public class WriterLineStyleTableTests
     {
         Assert.Equal([LineClass.CutInner, LineClass.CutOutline], Table.ClassesFor(LineOperation.Cut));
         Assert.Equal([LineClass.TabFold, LineClass.Valley, LineClass.Mountain], Table.ClassesFor(LineOperation.Score));
-        Assert.Equal([LineClass.Annotation], Table.ClassesFor(LineOperation.DrawOnly));
+        Assert.Equal([LineClass.Annotation, LineClass.FlatCrease], Table.ClassesFor(LineOperation.DrawOnly));
         LineStyleTable edited = Table.WithOperation(LineClass.Valley, LineOperation.Cut);
         Assert.Equal(LineOperation.Cut, edited[LineClass.Valley].Operation);
         Assert.Equal(LineOperation.Score, Table[LineClass.Valley].Operation); // the default is untouched
