@@ -20,7 +20,7 @@ public static class TessellationStage
     {
         var spec = job.Tessellation;
         progress.Stage("tessellation", $"generating the {spec.Family} pattern");
-        var advice = FamilyAdvice.For(spec.Family, CurvatureFigures.Sample(target));
+        var advice = FamilyAdvice.For(spec.Family, target);
         if (!advice.Suits) progress.Step(advice.Message);
         // The job loader accepts every catalogued family; the generators name those this version builds.
         if (!FamilyGenerators.Names.Contains(spec.Family))
