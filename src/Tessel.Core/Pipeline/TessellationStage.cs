@@ -10,7 +10,12 @@ namespace Tessel.Core.Pipeline;
 /// <param name="Pattern">Draped initial state with the family's constraints; null when the family
 /// cannot be built by this version (see <paramref name="Unavailable"/>).</param>
 /// <param name="Advice">Plain-words verdict on pairing this family with this target.</param>
-public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable, FamilyAdvice Advice);
+public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable, FamilyAdvice Advice)
+{
+    /// <summary>Whether the family can bend as tightly as the target at the job's cells (judged before
+    /// the fit), and the change that would let it; null where no estimate was made.</summary>
+    public FollowEstimate? Follow { get; init; }
+}
 
 /// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
 public static class TessellationStage
@@ -20,7 +25,8 @@ public static class TessellationStage
     {
         var spec = job.Tessellation;
         progress.Stage("tessellation", $"generating the {spec.Family} pattern");
-        var advice = FamilyAdvice.For(spec.Family, target);
+        var curvature = CurvatureFigures.Sample(target);
+        var advice = FamilyAdvice.For(spec.Family, target, curvature);
         if (!advice.Suits) progress.Step(advice.Message);
         // The job loader accepts every catalogued family; the generators name those this version builds.
         if (!FamilyGenerators.Names.Contains(spec.Family))
@@ -33,11 +39,13 @@ public static class TessellationStage
         var p = new FamilyParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
             spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
             spec.OrientationDeg, spec.FlatDiagonalShare);
+        var follow = advice.Suits ? FollowEstimate.Check(spec.Family, target, p, curvature, depthScalesWithCells: spec.FoldDepth is null) : null;
+        if (follow is { CanFollow: false, Message: { } warning }) progress.Step(warning);
         try
         {
             var pattern = FamilyGenerators.Generate(spec.Family, target, p);
             progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
-            return new TessellationStageResult(pattern, null, advice);
+            return new TessellationStageResult(pattern, null, advice) { Follow = follow };
         }
         catch (ArgumentException e)
         {

@@ -28,13 +28,23 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
     /// <summary>Judges the pairing of <paramref name="family"/> with the target: by its curvature
     /// (<see cref="For(string, CurvatureFigures)"/>), and a family is called suited only where its
     /// generator can build it (a Yoshimura vault needs a circle across the footprint's centre).</summary>
-    public static FamilyAdvice For(string family, ITargetSurface target)
+    public static FamilyAdvice For(string family, ITargetSurface target) => For(family, target, CurvatureFigures.Sample(target));
+
+    /// <summary>As <see cref="For(string, ITargetSurface)"/> with the target's curvature already sampled.</summary>
+    public static FamilyAdvice For(string family, ITargetSurface target, CurvatureFigures curvature)
     {
-        var advice = For(family, CurvatureFigures.Sample(target));
-        if (advice.Suits && family == "yoshimura" && YoshimuraGenerator.Problem(target) is { } problem)
-            return new(family, false, $"A Yoshimura pattern cannot be built on this target: {problem}.", "miura");
+        var advice = Buildable(For(family, curvature), target);
+        // The family named as better must be suited itself; a free net suits every target.
+        if (advice.Better is { } better && !Buildable(For(better, curvature), target).Suits)
+            advice = advice with { Better = "free-triangulated" };
         return advice;
     }
+
+    /// <summary>The advice, turned to "not suited" where the family's generator cannot build it.</summary>
+    private static FamilyAdvice Buildable(FamilyAdvice advice, ITargetSurface target) =>
+        advice.Suits && advice.Family == "yoshimura" && YoshimuraGenerator.Problem(target) is { } problem
+            ? new(advice.Family, false, $"A Yoshimura pattern cannot be built on this target: {problem}.", "miura")
+            : advice;
 
     /// <summary>Judges the pairing of <paramref name="family"/> with a target of the given curvature.</summary>
     public static FamilyAdvice For(string family, CurvatureFigures c)

@@ -58,6 +58,7 @@ public static class BuildRunner
         output.AddFigure("tessellation", "available", tessellation.Pattern is not null);
         output.AddFigure("tessellation", "familySuitsTarget", tessellation.Advice.Suits);
         output.AddFigure("tessellation", "advice", tessellation.Advice.Message);
+        if (tessellation.Follow is { CanFollow: false, Message: { } cannotFollow }) output.AddFigure("tessellation", "cannotFollow", cannotFollow);
         if (tessellation.Pattern is null)
         {
             output.AddFigure("tessellation", "note", tessellation.Unavailable!);
@@ -68,6 +69,7 @@ public static class BuildRunner
         ModelOutputs.AddFit(output, job, tessellation, fit);
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
+        if (tessellation.Follow is { CanFollow: false, Message: { } followWarning }) warnings.Add(followWarning);
         if (!fit.Fit.Converged)
         {
             string why = $"the fit did not converge ({fit.Fit.StopReason}; largest constraint residual {fit.Fit.Residuals.MaxConstraintViolation:0.##E+0})";
