@@ -88,6 +88,15 @@ public sealed class MeshSurface : ITargetSurface
         var (a, b, c) = Corners(t);
         var q = u * Vec3.Read(_mesh.Positions, a) + v * Vec3.Read(_mesh.Positions, b) + w * Vec3.Read(_mesh.Positions, c);
         var n = Blend(t, u, v, w);
+        // Off the mesh in plan the nearest point lies on its border, and the distance to it grows with
+        // the point's reach past the border, which moving along the normal cannot undo: the fit's
+        // distance rows would pull a pattern's edge vertex inward forever. There the surface is taken
+        // to continue along its tangent plane at the border point, so the distance is the normal part.
+        if (_bvh.HighestAbove(p.X, p.Y).Triangle < 0)
+        {
+            double along = Vec3.Dot(p - q, n);
+            return new SurfacePoint(p - along * n, n, along);
+        }
         double dist = (p - q).Length;
         return new SurfacePoint(q, n, Vec3.Dot(p - q, n) >= 0 ? dist : -dist);
     }

@@ -150,7 +150,7 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     [Theory]
     [InlineData("miura", "hexagon", 0.05)]
     [InlineData("free-triangulated", "hexagon", 0.08)]
-    [InlineData("free-triangulated", "ring", 0.3)]
+    [InlineData("free-triangulated", "ring", 0.06)]
     public void CutPatternsFitToTheConstraints(string family, string targetName, double rmsBand)
     {
         var target = Named(targetName);
@@ -160,8 +160,9 @@ public class PolygonFootprintTests(ITestOutputHelper output)
         Assert.InRange(r.Residuals.MaxConstraintViolation, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxKawasaki, 0, 1e-9);
         // Bands from the measured shape error with 6 x 6 cells over the bounding box (cells 0.7-0.94 m):
-        // hexagon Miura 36 mm, hexagon net 57 mm, ring net 236 mm (11 vertices are left on the 2.2 m wide
-        // ring; 10 x 10 cells give 181 mm on the mesh, 67 mm on the same dome as a formula).
+        // hexagon Miura 36 mm, hexagon net 57 mm, ring net 41 mm (11 vertices are left on the 2.2 m wide
+        // ring; the same dome as a formula over the same outline also gives 41 mm). Before the mesh's
+        // distance continued along its tangent plane past its border, the ring net stopped at 236 mm.
         Assert.InRange(r.Shape.Rms, 0, rmsBand);
     }
 
