@@ -161,7 +161,9 @@ public sealed class MeshSurface : ITargetSurface
             if (Math.Abs(area) <= 1e-12 * (x1 - x0) * (y1 - y0)) continue;
             pieces.Add(factory.CreatePolygon(c));
         }
-        if (pieces.Count == 0) throw new Jobs.JobError("target.mesh", "the mesh has no extent in plan (seen from above it is a line or a point)");
+        // A mesh seen edge-on from above (a wall) covers no plan area: its box is kept, and the domain
+        // check then names the point where it has no height.
+        if (pieces.Count == 0) return Footprint.Box(x0, y0, x1, y1);
         var union = CascadedPolygonUnion.Union(pieces);
         var outer = LargestPolygon(union);
         if (outer is null || factory.CreatePolygon(outer.Shell.Coordinates).Area >= (1 - 1e-9) * (x1 - x0) * (y1 - y0))

@@ -10,8 +10,9 @@ namespace Tessel.Core.Tessellation.FreeTriangulated;
 /// while the distance to the target is minimised; optionally a share of the cells stay whole as planar
 /// quad panels (flat diagonal, planarity constraint).</summary>
 /// <remarks>
-/// On a footprint that is not a rectangle, only cells whose corners all lie inside it are kept, so the
-/// border is stepped at the cell size (exact for convex footprints: kept cells lie inside). The net folds
+/// On a footprint that is not a rectangle, only cells whose corners all lie inside it (within its border
+/// tolerance) over the target are kept (<see cref="FootprintTrim"/>), so the border is stepped at the cell
+/// size (exact for convex footprints: kept cells lie inside). The net folds
 /// both ways wherever the target's curvature demands, so no mountain/valley sign is imposed during the
 /// fit; call <see cref="RelabelFolds"/> on the fitted mesh to label its creases.
 /// The start is crumpled: interior vertices sit off the target along its normal by normal deviates of standard deviation
@@ -106,10 +107,9 @@ public static class FreeTriangulatedGenerator
         }
         var compact = cut.Mesh.Faces;
         var mesh = RelabelFolds(new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat));
-        var stencils = cut.FairnessStencils.ToList();
         var constraints = FamilyConstraints.Developability;
         if (compact.Any(f => f.Length == 4)) constraints |= FamilyConstraints.QuadPlanarity;
-        return new GeneratedPattern(mesh, constraints, stencils.ToArray(), CentralVertex(pos), 0);
+        return new GeneratedPattern(mesh, constraints, cut.FairnessStencils, CentralVertex(pos), 0);
     }
 
     /// <summary>Labels every interior edge by the sign of its fold angle in the given state (flat within
