@@ -81,7 +81,7 @@ public static class RobustnessBenchmark
         {
             var job = Load(target, family, 6, 1, assets);
             var t = TargetStage.Run(job, Tessel.Output.IO.HeightMapImage.Decode, ProgressReporter.Silent);
-            return Tessel.Core.Tessellation.FamilyAdvice.For(family, Tessel.Core.Tessellation.CurvatureFigures.Sample(t.Target)).Suits;
+            return Tessel.Core.Tessellation.FamilyAdvice.For(family, t.Target).Suits;
         }
         catch (JobError e)
         {

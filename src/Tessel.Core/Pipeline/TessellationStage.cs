@@ -15,6 +15,9 @@ public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? 
     /// <summary>Drapes the same family with the same parameters on another surface (the fit's continuation
     /// starts from the target's best-fit plane); null when there is no pattern.</summary>
     public Func<ITargetSurface, GeneratedPattern>? DrapeOn { get; init; }
+    /// <summary>Whether the family can bend as tightly as the target at the job's cells (judged before
+    /// the fit), and the change that would let it; null where no estimate was made.</summary>
+    public FollowEstimate? Follow { get; init; }
 }
 
 /// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
@@ -25,7 +28,8 @@ public static class TessellationStage
     {
         var spec = job.Tessellation;
         progress.Stage("tessellation", $"generating the {spec.Family} pattern");
-        var advice = FamilyAdvice.For(spec.Family, CurvatureFigures.Sample(target));
+        var curvature = CurvatureFigures.Sample(target);
+        var advice = FamilyAdvice.For(spec.Family, target, curvature);
         if (!advice.Suits) progress.Step(advice.Message);
         // The job loader accepts every catalogued family; the generators name those this version builds.
         if (!FamilyGenerators.Names.Contains(spec.Family))
@@ -38,6 +42,8 @@ public static class TessellationStage
         var p = new FamilyParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
             spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
             spec.OrientationDeg, spec.FlatDiagonalShare);
+        var follow = advice.Suits ? FollowEstimate.Check(spec.Family, target, p, curvature, depthScalesWithCells: spec.FoldDepth is null) : null;
+        if (follow is { CanFollow: false, Message: { } warning }) progress.Step(warning);
         try
         {
             var pattern = FamilyGenerators.Generate(spec.Family, target, p);
@@ -48,7 +54,7 @@ public static class TessellationStage
             if (pieces > 1)
                 throw new JobError(spec.CellsX is null && spec.CellSize is not null ? "tessellation.cellSize" : "tessellation.cellsX",
                     $"the {spec.Family} pattern falls into {pieces} pieces on this footprint (facets meet only at corners where the footprint narrows); use smaller cells (more cellsX and cellsY) or a wider footprint");
-            return new TessellationStageResult(pattern, null, advice) { DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
+            return new TessellationStageResult(pattern, null, advice) { Follow = follow, DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)
         {

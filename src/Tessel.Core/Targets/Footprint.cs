@@ -52,6 +52,40 @@ public sealed class Footprint
         return a / 2;
     }
 
+    /// <summary>A polygon footprint over an axis-aligned box, treated as a rectangle (no trimming).</summary>
+    public static Footprint Box(double minX, double minY, double maxX, double maxY)
+    {
+        if (!(maxX > minX) || !(maxY > minY) || !double.IsFinite(maxX - minX) || !double.IsFinite(maxY - minY))
+            throw new ArgumentOutOfRangeException(nameof(maxX), "footprint box must have a positive finite width and depth");
+        return new Footprint([new(minX, minY), new(maxX, minY), new(maxX, maxY), new(minX, maxY)], true);
+    }
+
+    /// <summary>Distance in plan below which a point next to the border counts as on it: rounding in a
+    /// grid laid over the bounding box (min + n (max - min) / n) must not push its last row outside.</summary>
+    public double BorderTolerance => 1e-9 * Math.Max(Width, Depth);
+
+    /// <summary>Whether (x, y) lies inside or within <see cref="BorderTolerance"/> of the border.</summary>
+    public bool Covers(double x, double y) => Covers(x, y, BorderTolerance);
+
+    /// <summary>Whether (x, y) lies inside or within <paramref name="tolerance"/> of the border.</summary>
+    public bool Covers(double x, double y, double tolerance)
+    {
+        if (x < MinX - tolerance || x > MaxX + tolerance || y < MinY - tolerance || y > MaxY + tolerance) return false;
+        if (Contains(x, y)) return true;
+        var p = new Vec2(x, y);
+        for (int i = 0, j = Corners.Length - 1; i < Corners.Length; j = i++)
+            if (DistanceToSegment(p, Corners[j], Corners[i]) <= tolerance) return true;
+        return false;
+    }
+
+    private static double DistanceToSegment(Vec2 p, Vec2 a, Vec2 b)
+    {
+        var ab = b - a;
+        double len2 = Vec2.Dot(ab, ab);
+        double t = len2 > 0 ? Math.Clamp(Vec2.Dot(p - a, ab) / len2, 0, 1) : 0;
+        return (p - (a + t * ab)).Length;
+    }
+
     /// <summary>Even-odd point-in-polygon test; points on the border count as inside.</summary>
     public bool Contains(double x, double y)
     {

@@ -1,3 +1,7 @@
+using NetTopologySuite.Geometries;
+using NetTopologySuite.Operation.Buffer;
+using NetTopologySuite.Operation.Union;
+using NetTopologySuite.Simplify;
 using Tessel.Core.Geometry;
 using Tessel.Core.Targets.Meshes;
 
@@ -24,7 +28,7 @@ public sealed class MeshSurface : ITargetSurface
     private readonly Curvatures[] _curvatures;
 
     /// <param name="mesh">Mesh in metres.</param>
-    /// <param name="footprint">Plan region; null = the mesh's plan bounding box.</param>
+    /// <param name="footprint">Plan region; null = the mesh's plan outline (<see cref="PlanOutline"/>).</param>
     /// <param name="name">File name, for the description.</param>
     public MeshSurface(TriangleMesh mesh, Footprint? footprint, string name)
     {
@@ -32,7 +36,7 @@ public sealed class MeshSurface : ITargetSurface
         _bvh = new TriangleBvh(_mesh);
         _normals = VertexNormals(_mesh);
         _curvatures = VertexCurvatures(_mesh, _normals);
-        Footprint = footprint ?? PlanBounds(_mesh);
+        Footprint = footprint ?? PlanOutline(_mesh);
         Name = name;
         for (int i = 2; i < _mesh.Positions.Length; i += 3)
         {
@@ -84,6 +88,15 @@ public sealed class MeshSurface : ITargetSurface
         var (a, b, c) = Corners(t);
         var q = u * Vec3.Read(_mesh.Positions, a) + v * Vec3.Read(_mesh.Positions, b) + w * Vec3.Read(_mesh.Positions, c);
         var n = Blend(t, u, v, w);
+        // Off the mesh in plan the nearest point lies on its border, and the distance to it grows with
+        // the point's reach past the border, which moving along the normal cannot undo: the fit's
+        // distance rows would pull a pattern's edge vertex inward forever. There the surface is taken
+        // to continue along its tangent plane at the border point, so the distance is the normal part.
+        if (_bvh.HighestAbove(p.X, p.Y).Triangle < 0)
+        {
+            double along = Vec3.Dot(p - q, n);
+            return new SurfacePoint(p - along * n, n, along);
+        }
         double dist = (p - q).Length;
         return new SurfacePoint(q, n, Vec3.Dot(p - q, n) >= 0 ? dist : -dist);
     }
@@ -114,7 +127,16 @@ public sealed class MeshSurface : ITargetSurface
         return new TriangleMesh(m.Positions, tris);
     }
 
-    private static Footprint PlanBounds(TriangleMesh m)
+    /// <summary>Simplification tolerance of the plan outline over the plan's larger side: 0.1 mm on a
+    /// 10 m mesh, far below any cell; the outline is then moved inward by twice this, so every point on
+    /// it lies over a triangle and has a height.</summary>
+    public const double OutlineTolerance = 1e-5;
+
+    /// <summary>The mesh's plan outline: the union of its triangles projected on the xy-plane
+    /// (NetTopologySuite's cascaded union), simplified and moved slightly inward. A plan that fills its
+    /// bounding box gives that box (a rectangle footprint); a plan in several pieces gives the largest
+    /// piece, and holes stay undefined (the domain check names a point in one).</summary>
+    public static Footprint PlanOutline(TriangleMesh m)
     {
         double x0 = double.MaxValue, x1 = double.MinValue, y0 = double.MaxValue, y1 = double.MinValue;
         for (int i = 0; i < m.VertexCount; i++)
@@ -123,7 +145,44 @@ public sealed class MeshSurface : ITargetSurface
             y0 = Math.Min(y0, m.Positions[3 * i + 1]); y1 = Math.Max(y1, m.Positions[3 * i + 1]);
         }
         if (!(x1 > x0) || !(y1 > y0)) throw new Jobs.JobError("target.mesh", "the mesh has no extent in plan (seen from above it is a line or a point)");
-        return Footprint.Polygon([new(x0, y0), new(x1, y0), new(x1, y1), new(x0, y1)]);
+        var factory = new GeometryFactory(new PrecisionModel(PrecisionModels.Floating));
+        var pieces = new List<NetTopologySuite.Geometries.Geometry>(m.TriangleCount);
+        for (int t = 0; t < m.TriangleCount; t++)
+        {
+            var c = new Coordinate[4];
+            for (int k = 0; k < 3; k++)
+            {
+                int v = m.Triangles[3 * t + k];
+                c[k] = new Coordinate(m.Positions[3 * v], m.Positions[3 * v + 1]);
+            }
+            c[3] = c[0].Copy();
+            // Triangles seen edge-on from above cover no plan area.
+            double area = (c[1].X - c[0].X) * (c[2].Y - c[0].Y) - (c[2].X - c[0].X) * (c[1].Y - c[0].Y);
+            if (Math.Abs(area) <= 1e-12 * (x1 - x0) * (y1 - y0)) continue;
+            pieces.Add(factory.CreatePolygon(c));
+        }
+        // A mesh seen edge-on from above (a wall) covers no plan area: its box is kept, and the domain
+        // check then names the point where it has no height.
+        if (pieces.Count == 0) return Footprint.Box(x0, y0, x1, y1);
+        var union = CascadedPolygonUnion.Union(pieces);
+        var outer = LargestPolygon(union);
+        if (outer is null || factory.CreatePolygon(outer.Shell.Coordinates).Area >= (1 - 1e-9) * (x1 - x0) * (y1 - y0))
+            return Footprint.Box(x0, y0, x1, y1);
+        double tol = OutlineTolerance * Math.Max(x1 - x0, y1 - y0);
+        var simple = TopologyPreservingSimplifier.Simplify(factory.CreatePolygon(outer.Shell.Coordinates), tol);
+        var inner = simple.Buffer(-2 * tol, new BufferParameters { JoinStyle = JoinStyle.Mitre, MitreLimit = 2, QuadrantSegments = 2 });
+        var ring = LargestPolygon(inner) ?? outer;
+        var corners = ring.Shell.Coordinates;
+        int n = corners.Length > 1 && corners[0].Equals2D(corners[^1]) ? corners.Length - 1 : corners.Length;
+        return Footprint.Polygon(corners.Take(n).Select(c => new Vec2(c.X, c.Y)).ToArray());
+    }
+
+    private static Polygon? LargestPolygon(NetTopologySuite.Geometries.Geometry g)
+    {
+        Polygon? best = null;
+        for (int i = 0; i < g.NumGeometries; i++)
+            if (g.GetGeometryN(i) is Polygon p && (best is null || p.Area > best.Area)) best = p;
+        return best;
     }
 
     private static Vec3[] VertexNormals(TriangleMesh m)

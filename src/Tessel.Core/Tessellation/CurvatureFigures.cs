@@ -7,14 +7,29 @@ namespace Tessel.Core.Tessellation;
 /// <param name="MaxGaussian">Largest K found, 1/m^2 (positive: dome-like).</param>
 /// <param name="MaxAbsPrincipal">Largest |principal curvature| found, 1/m (0: flat).</param>
 /// <param name="Area">Footprint area, m^2: K times area is the dimensionless total curvature scale.</param>
-public sealed record CurvatureFigures(double MinGaussian, double MaxGaussian, double MaxAbsPrincipal, double Area)
+/// <param name="MinMean">Smallest mean curvature H found, 1/m (sign convention of <see cref="Curvatures"/>).</param>
+/// <param name="MaxMean">Largest mean curvature H found, 1/m.</param>
+public sealed record CurvatureFigures(double MinGaussian, double MaxGaussian, double MaxAbsPrincipal, double Area,
+    double MinMean = 0, double MaxMean = 0)
 {
+    /// <summary>True when the target bends both ways somewhere (mean curvature of both signs, each at
+    /// least a fifth of the larger magnitude): a wave, or a vault that turns into a trough.</summary>
+    public bool BendsBothWays
+    {
+        get
+        {
+            double big = Math.Max(Math.Abs(MinMean), Math.Abs(MaxMean));
+            return big > 0 && MinMean < -0.2 * big && MaxMean > 0.2 * big;
+        }
+    }
+
     /// <summary>Samples an n x n grid over the footprint's bounding box (points inside the footprint
     /// where the target is defined).</summary>
     public static CurvatureFigures Sample(ITargetSurface target, int n = 21)
     {
         var fp = target.Footprint;
         double kMin = double.PositiveInfinity, kMax = double.NegativeInfinity, pMax = 0;
+        double hMin = double.PositiveInfinity, hMax = double.NegativeInfinity;
         for (int j = 0; j < n; j++)
             for (int i = 0; i < n; i++)
             {
@@ -24,8 +39,9 @@ public sealed record CurvatureFigures(double MinGaussian, double MaxGaussian, do
                 if (!double.IsFinite(c.Gaussian)) continue;
                 kMin = Math.Min(kMin, c.Gaussian); kMax = Math.Max(kMax, c.Gaussian);
                 pMax = Math.Max(pMax, Math.Max(Math.Abs(c.K1), Math.Abs(c.K2)));
+                hMin = Math.Min(hMin, c.Mean); hMax = Math.Max(hMax, c.Mean);
             }
         if (double.IsPositiveInfinity(kMin)) throw new ArgumentException("the target has no defined point over its footprint", nameof(target));
-        return new CurvatureFigures(kMin, kMax, pMax, fp.Area);
+        return new CurvatureFigures(kMin, kMax, pMax, fp.Area, hMin, hMax);
     }
 }

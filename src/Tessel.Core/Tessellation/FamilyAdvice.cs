@@ -1,3 +1,6 @@
+using Tessel.Core.Targets;
+using Tessel.Core.Tessellation.Yoshimura;
+
 namespace Tessel.Core.Tessellation;
 
 /// <summary>Whether a family suits a target, in plain words.</summary>
@@ -22,6 +25,27 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
         _ => throw new ArgumentException($"unknown family '{family}'", nameof(family)),
     };
 
+    /// <summary>Judges the pairing of <paramref name="family"/> with the target: by its curvature
+    /// (<see cref="For(string, CurvatureFigures)"/>), and a family is called suited only where its
+    /// generator can build it (a Yoshimura vault needs a circle across the footprint's centre).</summary>
+    public static FamilyAdvice For(string family, ITargetSurface target) => For(family, target, CurvatureFigures.Sample(target));
+
+    /// <summary>As <see cref="For(string, ITargetSurface)"/> with the target's curvature already sampled.</summary>
+    public static FamilyAdvice For(string family, ITargetSurface target, CurvatureFigures curvature)
+    {
+        var advice = Buildable(For(family, curvature), target);
+        // The family named as better must be suited itself; a free net suits every target.
+        if (advice.Better is { } better && !Buildable(For(better, curvature), target).Suits)
+            advice = advice with { Better = "free-triangulated" };
+        return advice;
+    }
+
+    /// <summary>The advice, turned to "not suited" where the family's generator cannot build it.</summary>
+    private static FamilyAdvice Buildable(FamilyAdvice advice, ITargetSurface target) =>
+        advice.Suits && advice.Family == "yoshimura" && YoshimuraGenerator.Problem(target) is { } problem
+            ? new(advice.Family, false, $"A Yoshimura pattern cannot be built on this target: {problem}.", "miura")
+            : advice;
+
     /// <summary>Judges the pairing of <paramref name="family"/> with a target of the given curvature.</summary>
     public static FamilyAdvice For(string family, CurvatureFigures c)
     {
@@ -40,6 +64,8 @@ public sealed record FamilyAdvice(string Family, bool Suits, string Message, str
                 return new(family, true, $"The target is dome-like ({k}), the case this family is meant for; check its envelope defects after the fit.", null);
             case "yoshimura":
                 if (dome || saddle) return new(family, false, $"The target is doubly curved ({k}): a Yoshimura pattern folds to a cylinder (K = 0) and cannot follow it.", dome ? (saddle ? "free-triangulated" : "waterbomb") : "miura");
+                if (!curved) return new(family, false, $"The target is flat ({k}): a Yoshimura pattern folds to a vault and cannot lie flat.", "miura");
+                if (c.BendsBothWays) return new(family, false, $"The target bends both ways, like a wave (mean curvature from {c.MinMean:0.####} to {c.MaxMean:0.####} 1/m): a Yoshimura vault bends one way only.", "miura");
                 return new(family, true, $"The target is single-curved ({k}): a Yoshimura vault fits it, in closed form on a circular cylinder.", null);
             case "free-triangulated":
                 if (!dome && !saddle) return new(family, true, $"Any shape works ({k}); for a single-curved target a Yoshimura or Miura pattern gives a tidier, regular fold layout.", curved ? "yoshimura" : "miura");

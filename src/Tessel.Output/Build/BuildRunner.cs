@@ -60,6 +60,7 @@ public static class BuildRunner
         output.AddFigure("tessellation", "available", tessellation.Pattern is not null);
         output.AddFigure("tessellation", "familySuitsTarget", tessellation.Advice.Suits);
         output.AddFigure("tessellation", "advice", tessellation.Advice.Message);
+        if (tessellation.Follow is { CanFollow: false, Message: { } cannotFollow }) output.AddFigure("tessellation", "cannotFollow", cannotFollow);
         if (tessellation.Pattern is null)
         {
             output.AddFigure("tessellation", "note", tessellation.Unavailable!);
@@ -75,6 +76,7 @@ public static class BuildRunner
         ModelOutputs.AddFit(output, job, tessellation, fit);
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
+        if (tessellation.Follow is { CanFollow: false, Message: { } followWarning }) warnings.Add(followWarning);
         warnings.AddRange(fit.Fit.Adjustments);
         if (fit.Fit.Buildable && !fit.Fit.Converged)
             warnings.Add($"the fit is buildable but not finished: {FitStage.Verdict(fit.Fit)}; raise fitting.maxIterations for a closer shape");

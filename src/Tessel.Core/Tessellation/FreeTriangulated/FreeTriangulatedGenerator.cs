@@ -10,8 +10,9 @@ namespace Tessel.Core.Tessellation.FreeTriangulated;
 /// while the distance to the target is minimised; optionally a share of the cells stay whole as planar
 /// quad panels (flat diagonal, planarity constraint).</summary>
 /// <remarks>
-/// On a footprint that is not a rectangle, only cells whose corners all lie inside it are kept, so the
-/// border is stepped at the cell size (exact for convex footprints: kept cells lie inside). The net folds
+/// On a footprint that is not a rectangle, only cells whose corners all lie inside it (within its border
+/// tolerance) over the target are kept (<see cref="FootprintTrim"/>), so the border is stepped at the cell
+/// size (exact for convex footprints: kept cells lie inside). The net folds
 /// both ways wherever the target's curvature demands, so no mountain/valley sign is imposed during the
 /// fit; call <see cref="RelabelFolds"/> on the fitted mesh to label its creases.
 /// The start is crumpled: interior vertices sit off the target along its normal by normal deviates of standard deviation
@@ -53,73 +54,62 @@ public static class FreeTriangulatedGenerator
         double dx = fp.Width / cx, dy = fp.Depth / cy;
         int Grid(int i, int j) => j * nx + i;
 
-        // Cells kept: all four corners inside the footprint.
+        // The grid over the bounding box, cut to the cells whose corners all lie inside the footprint
+        // (within its border tolerance) where the target has a surface.
+        var keep = new bool[nx * (cy + 1)];
+        var full = new double[3 * keep.Length];
+        for (int g = 0; g < keep.Length; g++)
+        {
+            double x = g % nx == cx ? fp.MaxX : fp.MinX + (g % nx) * dx, y = g / nx == cy ? fp.MaxY : fp.MinY + (g / nx) * dy;
+            keep[g] = FootprintTrim.Keeps(target, new Vec2(x, y));
+            new Vec3(x, y, keep[g] ? target.HeightAt(x, y) : 0).Write(full, g);
+        }
         var faces = new List<int[]>();
         for (int j = 0; j < cy; j++)
             for (int i = 0; i < cx; i++)
             {
                 int a = Grid(i, j), b = Grid(i + 1, j), c = Grid(i + 1, j + 1), d = Grid(i, j + 1);
-                bool inside = true;
-                foreach (var (ii, jj) in new[] { (i, j), (i + 1, j), (i + 1, j + 1), (i, j + 1) })
-                    inside &= fp.Contains(fp.MinX + ii * dx, fp.MinY + jj * dy);
-                if (!inside) continue;
                 if (IsPanel(i, j, p.FlatDiagonalShare)) faces.Add([a, b, c, d]);
                 else { faces.Add([a, b, c]); faces.Add([a, c, d]); }
             }
-        if (faces.Count == 0)
-            throw new ArgumentException("no grid cell fits inside the footprint; use a smaller CellSize or more cells", nameof(p.CellSize));
-
-        // Compact the vertex numbering to the vertices in use, in grid order (deterministic).
-        var map = Enumerable.Repeat(-1, nx * (cy + 1)).ToArray();
-        foreach (var f in faces) foreach (var v in f) map[v] = 0;
-        int n = 0;
-        for (int g = 0; g < map.Length; g++) if (map[g] == 0) map[g] = n++;
-        var pos = new double[3 * n];
-        var layers = new VertexLayer[n];
-        var offsets = new double[n];
-        var shifts = new double[n];
-        for (int g = 0; g < map.Length; g++)
-        {
-            if (map[g] < 0) continue;
-            double x = fp.MinX + (g % nx) * dx, y = fp.MinY + (g / nx) * dy;
-            double z = target.HeightAt(x, y);
-            if (!double.IsFinite(z))
-                throw new ArgumentException($"the net reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller footprint", nameof(target));
-            new Vec3(x, y, z).Write(pos, map[g]);
-            int gi = g % nx, gj = g / nx;
-            bool corrugate = p.FlatDiagonalShare > 0 || p.CorrugatedStart;
-            offsets[map[g]] = p.Crumple * Math.Min(dx, dy) * (corrugate ? CorrugationFactor * (gj % 2 == 1 ? 1 : -1) : CrumpleProfile(gi, gj));
-            shifts[map[g]] = corrugate && !p.CorrugatedStart && gi % 2 == 1 ? ZigZagShift * dy : 0;
-            layers[map[g]] = VertexLayer.Top;
-        }
-        var compact = faces.Select(f => f.Select(v => map[v]).ToArray()).ToArray();
-        var boundary = new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat).BoundaryVertices();
-        for (int v = 0; v < n; v++)
-        {
-            if (boundary[v] && !p.CorrugatedStart) continue;
-            var q = Vec3.Read(pos, v);
-            if (shifts[v] != 0)
-            {
-                double z = target.HeightAt(q.X, q.Y + shifts[v]);
-                // A target defined only over its footprint keeps the unshifted point (it only moves the start).
-                if (double.IsFinite(z)) q = new Vec3(q.X, q.Y + shifts[v], z);
-            }
-            (q + offsets[v] * target.NormalAt(q.X, q.Y)).Write(pos, v);
-        }
-        var mesh = RelabelFolds(new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat));
-
-        var stencils = new List<int>();
+        var gridStencils = new List<int>();
         for (int j = 0; j <= cy; j++)
             for (int i = 0; i <= cx; i++)
             {
-                int c = map[Grid(i, j)];
-                if (c < 0) continue;
-                if (i >= 1 && i < cx && map[Grid(i - 1, j)] >= 0 && map[Grid(i + 1, j)] >= 0) stencils.AddRange([map[Grid(i - 1, j)], c, map[Grid(i + 1, j)]]);
-                if (j >= 1 && j < cy && map[Grid(i, j - 1)] >= 0 && map[Grid(i, j + 1)] >= 0) stencils.AddRange([map[Grid(i, j - 1)], c, map[Grid(i, j + 1)]]);
+                int c = Grid(i, j);
+                if (i >= 1 && i < cx) gridStencils.AddRange([Grid(i - 1, j), c, Grid(i + 1, j)]);
+                if (j >= 1 && j < cy) gridStencils.AddRange([Grid(i, j - 1), c, Grid(i, j + 1)]);
             }
+        var sheet = new CreaseMesh("free-triangulated", full, faces.ToArray(), new VertexLayer[keep.Length], (_, _) => CreaseRole.Flat);
+        var cut = FootprintTrim.Trim(sheet, keep, gridStencils.ToArray(), Grid(cx / 2, cy / 2));
+
+        int n = cut.Mesh.VertexCount;
+        var oldOfNew = new int[n];
+        for (int g = 0; g < keep.Length; g++) if (cut.NewOfOld[g] >= 0) oldOfNew[cut.NewOfOld[g]] = g;
+        var pos = (double[])cut.Mesh.Positions.Clone();
+        var layers = Enumerable.Repeat(VertexLayer.Top, n).ToArray();
+        var boundary = cut.Mesh.BoundaryVertices();
+        bool corrugate = p.FlatDiagonalShare > 0 || p.CorrugatedStart;
+        for (int v = 0; v < n; v++)
+        {
+            if (boundary[v] && !p.CorrugatedStart) continue;
+            int gi = oldOfNew[v] % nx, gj = oldOfNew[v] / nx;
+            double offset = p.Crumple * Math.Min(dx, dy) * (corrugate ? CorrugationFactor * (gj % 2 == 1 ? 1 : -1) : CrumpleProfile(gi, gj));
+            double shift = corrugate && !p.CorrugatedStart && gi % 2 == 1 ? ZigZagShift * dy : 0;
+            var q = Vec3.Read(pos, v);
+            if (shift != 0)
+            {
+                double z = target.HeightAt(q.X, q.Y + shift);
+                // A target defined only over its footprint keeps the unshifted point (it only moves the start).
+                if (double.IsFinite(z)) q = new Vec3(q.X, q.Y + shift, z);
+            }
+            (q + offset * target.NormalAt(q.X, q.Y)).Write(pos, v);
+        }
+        var compact = cut.Mesh.Faces;
+        var mesh = RelabelFolds(new CreaseMesh("free-triangulated", pos, compact, layers, (_, _) => CreaseRole.Flat));
         var constraints = FamilyConstraints.Developability;
         if (compact.Any(f => f.Length == 4)) constraints |= FamilyConstraints.QuadPlanarity;
-        return new GeneratedPattern(mesh, constraints, stencils.ToArray(), CentralVertex(pos), 0);
+        return new GeneratedPattern(mesh, constraints, cut.FairnessStencils, CentralVertex(pos), 0);
     }
 
     /// <summary>Labels every interior edge by the sign of its fold angle in the given state (flat within

@@ -11,22 +11,36 @@ public static class MiuraGenerator
 {
     /// <summary>Builds and drapes the sheet. Throws <see cref="ArgumentException"/> naming the parameter
     /// and the fix when the parameters cannot make a Miura sheet on this footprint.</summary>
-    public static GeneratedPattern Generate(ITargetSurface target, MiuraParameters p)
-    {
-        var (cell, cellsX, cellsY) = ResolveCell(target.Footprint, p);
-        var flat = RegularMiuraSheet.Build(cell, cellsX, cellsY);
-        int nx = 2 * cellsX + 1, ny = 2 * cellsY + 1;
+    public static GeneratedPattern Generate(ITargetSurface target, MiuraParameters p) =>
+        Drape(target, p, PlanPoints(target.Footprint, p), "miura");
 
+    /// <summary>Drapes the regular sheet with its vertices at the given plan points (one per vertex, in
+    /// <see cref="RegularMiuraSheet"/> order): top layer on the target, bottom layer FoldDepth below it.</summary>
+    /// <remarks>On a rectangle footprint the whole sheet is kept and its zig-zag overhangs the footprint by
+    /// up to V; a target defined only over its footprint (a mesh, a height map) is sampled at the nearest
+    /// footprint point there, which only moves the starting drape. On a polygon footprint the sheet,
+    /// laid over the bounding box, is cut to the cells inside the polygon where the target has a
+    /// surface (<see cref="FootprintTrim"/>).</remarks>
+    public static GeneratedPattern Drape(ITargetSurface target, MiuraParameters p, Vec2[] plans, string family)
+    {
         var fp = target.Footprint;
-        var plans = PlanPoints(fp, p);
+        var (cell, cellsX, cellsY) = ResolveCell(fp, p);
+        var flat = RegularMiuraSheet.Build(cell, cellsX, cellsY);
+        if (plans.Length != flat.VertexCount) throw new ArgumentException("one plan point per sheet vertex", nameof(plans));
+        int nx = 2 * cellsX + 1, ny = 2 * cellsY + 1;
+        bool trim = !fp.IsRectangle;
+        var keep = new bool[flat.VertexCount];
         var pos = new double[flat.Positions.Length];
         double d = p.FoldDepth;
         for (int k = 0; k < flat.VertexCount; k++)
         {
             var plan = plans[k];
-            // The zig-zag overhangs the footprint by up to V; a target defined only over its footprint
-            // (a mesh, a height map) is sampled at the nearest footprint point instead, which only
-            // moves the starting drape.
+            if (trim)
+            {
+                keep[k] = FootprintTrim.Keeps(target, plan);
+                // A dropped vertex only needs a finite place until the cut removes it.
+                if (!keep[k]) { new Vec3(plan.X, plan.Y, 0).Write(pos, k); continue; }
+            }
             var sample = double.IsFinite(target.HeightAt(plan.X, plan.Y))
                 ? plan
                 : new Vec2(Math.Clamp(plan.X, fp.MinX, fp.MaxX), Math.Clamp(plan.Y, fp.MinY, fp.MaxY));
@@ -37,10 +51,21 @@ public static class MiuraGenerator
             var point = flat.Layers[k] == VertexLayer.Top ? onTarget : onTarget - d * target.NormalAt(sample.X, sample.Y);
             point.Write(pos, k);
         }
-        var mesh = flat.WithPositions(pos);
-        return new GeneratedPattern(mesh, FamilyConstraints.All, FairnessStencils(nx, ny), AnchorVertex(nx, cellsX, cellsY), d)
+        var roles = new Dictionary<(int, int), CreaseRole>();
+        for (int e = 0; e < flat.EdgeCount; e++) roles[(flat.EdgeVertices[2 * e], flat.EdgeVertices[2 * e + 1])] = flat.EdgeRoles[e];
+        var mesh = new CreaseMesh(family, pos, flat.Faces, flat.Layers, (a, b) => roles[(a, b)]);
+        var stencils = FairnessStencils(nx, ny);
+        int anchor = AnchorVertex(nx, cellsX, cellsY);
+        if (!trim)
+            return new GeneratedPattern(mesh, FamilyConstraints.All, stencils, anchor, d)
+            {
+                Envelope = folded => TopEnvelope(folded, cellsX, cellsY),
+            };
+        var cut = FootprintTrim.Trim(mesh, keep, stencils, anchor);
+        var envelope = EnvelopeGrid(cellsX, cellsY, cut.NewOfOld);
+        return new GeneratedPattern(cut.Mesh, FamilyConstraints.All, cut.FairnessStencils, cut.AnchorVertex, d)
         {
-            Envelope = folded => TopEnvelope(folded, cellsX, cellsY),
+            Envelope = envelope.Faces.Length == 0 ? null : folded => envelope.Build(folded),
         };
     }
 
@@ -148,20 +173,45 @@ public static class MiuraGenerator
     /// even columns i): a regular cellsY x (cellsX + 1) grid, split along one diagonal, whose angle
     /// defects are its discrete Gaussian curvature. (The zig-zag vertices are left out: skinny triangles
     /// through them can be non-convex even with every vertex on a sphere.)</summary>
-    public static CreaseMesh TopEnvelope(CreaseMesh folded, int cellsX, int cellsY)
+    public static CreaseMesh TopEnvelope(CreaseMesh folded, int cellsX, int cellsY) =>
+        EnvelopeGrid(cellsX, cellsY, null).Build(folded);
+
+    /// <summary>The envelope's vertices (as indices into the folded mesh) and triangles.</summary>
+    private sealed record EnvelopeLayout(int[] Source, int[][] Faces)
+    {
+        public CreaseMesh Build(CreaseMesh folded)
+        {
+            var pos = new double[3 * Source.Length];
+            for (int v = 0; v < Source.Length; v++) folded.Vertex(Source[v]).Write(pos, v);
+            return new CreaseMesh("envelope", pos, Faces, new VertexLayer[Source.Length], (_, _) => CreaseRole.Flat);
+        }
+    }
+
+    /// <summary>The <see cref="TopEnvelope"/> grid; on a cut sheet (<paramref name="newOfOld"/> given) only
+    /// the grid triangles whose three vertices were kept, over the kept vertices they use.</summary>
+    private static EnvelopeLayout EnvelopeGrid(int cellsX, int cellsY, int[]? newOfOld)
     {
         int nx = 2 * cellsX + 1, cols = cellsX + 1, rows = cellsY;
-        var pos = new double[3 * cols * rows];
-        for (int t = 0; t < rows; t++)
-            for (int i = 0; i < cols; i++)
-                folded.Vertex((2 * t + 1) * nx + 2 * i).Write(pos, t * cols + i);
+        int Sheet(int t, int i) => (2 * t + 1) * nx + 2 * i;
+        int Folded(int t, int i) => newOfOld is null ? Sheet(t, i) : newOfOld[Sheet(t, i)];
         var faces = new List<int[]>();
         for (int t = 0; t + 1 < rows; t++)
             for (int i = 0; i + 1 < cols; i++)
             {
-                int a = t * cols + i, b = a + 1, c = a + cols + 1, d = a + cols;
-                faces.Add([a, b, c]); faces.Add([a, c, d]);
+                int[] a = [t * cols + i, t * cols + i + 1, (t + 1) * cols + i + 1], b = [t * cols + i, (t + 1) * cols + i + 1, (t + 1) * cols + i];
+                foreach (var f in new[] { a, b })
+                    if (f.All(g => Folded(g / cols, g % cols) >= 0)) faces.Add(f);
             }
-        return new CreaseMesh("envelope", pos, faces.ToArray(), new VertexLayer[cols * rows], (_, _) => CreaseRole.Flat);
+        // Grid numbering t * cols + i, compacted to the vertices the faces use.
+        var index = new Dictionary<int, int>();
+        var source = new List<int>();
+        for (int g = 0; g < cols * rows; g++)
+        {
+            bool used = newOfOld is null || faces.Any(f => f.Contains(g));
+            if (!used) continue;
+            index[g] = source.Count;
+            source.Add(Folded(g / cols, g % cols));
+        }
+        return new EnvelopeLayout(source.ToArray(), faces.Select(f => f.Select(g => index[g]).ToArray()).ToArray());
     }
 }

@@ -32,50 +32,38 @@ public static class ReverseCurvatureGenerator
     public const double InitialPenalty = 100;
 
     /// <summary>Builds and drapes the graded sheet; parameter errors as in <see cref="MiuraGenerator"/>.</summary>
+    /// <remarks>The grading never takes a vertex off the surface: a graded point where the target has no
+    /// height (or, on a polygon footprint, outside the polygon) is moved back along its shift, halving
+    /// it down to no shift at all, so a footprint-only target (a mesh, a height map) is met wherever the
+    /// uniform sheet met it.</remarks>
     public static GeneratedPattern Generate(ITargetSurface target, ReverseCurvatureParameters p)
     {
         if (!(p.Grading > -0.9 && p.Grading < 3) || !double.IsFinite(p.Grading))
             throw new ArgumentException($"Grading = {p.Grading} is outside (-0.9, 3); use e.g. 0.3 for a zig-zag 30 % deeper at the corners", nameof(p.Grading));
-        var uniform = MiuraGenerator.Generate(target, p.Miura);
-        var (cell, cellsX, cellsY) = MiuraGenerator.ResolveCell(target.Footprint, p.Miura);
+        var fp = target.Footprint;
+        var (cell, cellsX, cellsY) = MiuraGenerator.ResolveCell(fp, p.Miura);
         int nx = 2 * cellsX + 1, ny = 2 * cellsY + 1;
-        var mesh = uniform.Mesh;
-        var plans = MiuraGenerator.PlanPoints(target.Footprint, p.Miura);
-        var pos = new double[mesh.Positions.Length];
+        var plans = MiuraGenerator.PlanPoints(fp, p.Miura);
         double phi = p.Miura.OrientationDeg * Math.PI / 180;
         // Zig-zag direction (sheet y axis) in plan.
         var across = new Vec2(0, 1).Rotated(phi);
         for (int j = 0; j < ny; j++)
-            for (int i = 0; i < nx; i++)
+            for (int i = 1; i < nx; i += 2)
             {
+                // Odd columns carry the zig-zag offset V: move them by Grading r^2 V across the zig-zag.
                 int k = j * nx + i;
-                var plan = plans[k];
-                if (i % 2 == 1)
-                {
-                    // Odd columns carry the zig-zag offset V: move them by Grading r^2 V across the zig-zag.
-                    double rx = (i - cellsX) / (double)cellsX, ry = (j - cellsY) / (double)cellsY;
-                    plan += p.Grading * 0.5 * (rx * rx + ry * ry) * cell.V * across;
-                }
-                double z = target.HeightAt(plan.X, plan.Y);
-                if (!double.IsFinite(z))
-                {
-                    if (i % 2 == 1 && p.Grading != 0)
-                        throw new ArgumentException($"the graded sheet reaches ({plan.X:0.###}, {plan.Y:0.###}) m where the target has no surface; use a smaller Grading or footprint", nameof(p.Grading));
-                    // Where the plain drape had to clamp (zig-zag overhang of a footprint-only target), keep it.
-                    Vec3.Read(mesh.Positions, k).Write(pos, k);
-                    continue;
-                }
-                var onTarget = new Vec3(plan.X, plan.Y, z);
-                (mesh.Layers[k] == VertexLayer.Top ? onTarget : onTarget - uniform.LayerOffset * target.NormalAt(plan.X, plan.Y)).Write(pos, k);
+                double rx = (i - cellsX) / (double)cellsX, ry = (j - cellsY) / (double)cellsY;
+                var shift = p.Grading * 0.5 * (rx * rx + ry * ry) * cell.V * across;
+                if (!OnSurface(target, plans[k])) continue;
+                for (int halving = 0; halving < 12 && !OnSurface(target, plans[k] + shift); halving++) shift *= 0.5;
+                if (OnSurface(target, plans[k] + shift)) plans[k] += shift;
             }
-        var graded = new CreaseMesh("reverse-curvature", pos, mesh.Faces, mesh.Layers, RoleLookup(mesh));
-        return uniform with { Mesh = graded, InitialPenalty = InitialPenalty, PromisesSynclasticEnvelope = true };
+        var graded = MiuraGenerator.Drape(target, p.Miura, plans, "reverse-curvature");
+        return graded with { InitialPenalty = InitialPenalty, PromisesSynclasticEnvelope = true };
     }
 
-    private static Func<int, int, CreaseRole> RoleLookup(CreaseMesh mesh)
-    {
-        var roles = new Dictionary<(int, int), CreaseRole>();
-        for (int e = 0; e < mesh.EdgeCount; e++) roles[(mesh.EdgeVertices[2 * e], mesh.EdgeVertices[2 * e + 1])] = mesh.EdgeRoles[e];
-        return (a, b) => roles[(a, b)];
-    }
+    /// <summary>Where the graded sheet may put a vertex: over the surface, and on a polygon footprint
+    /// (which is cut to its cells) also inside the polygon.</summary>
+    private static bool OnSurface(ITargetSurface target, Vec2 plan) =>
+        target.Footprint.IsRectangle ? double.IsFinite(target.HeightAt(plan.X, plan.Y)) : FootprintTrim.Keeps(target, plan);
 }

@@ -54,8 +54,20 @@ public static class WaterbombGenerator
         // target, grid vertices FoldDepth below it along the normal. The outer row lines are tucked as
         // if the tessellation went on, so every interior vertex starts developable on a plane; they
         // overhang the footprint by the tuck.
+        // On a polygon footprint the sheet over the bounding box is cut to the cells inside it
+        // (FootprintTrim), judged by the untucked layout so that the tuck never changes what is kept.
+        bool trim = !fp.IsRectangle;
+        var keep = new bool[n];
+        for (int v = 0; v < n; v++)
+        {
+            var at = new Vec2(fp.MinX + plan[2 * v], fp.MinY + plan[2 * v + 1]);
+            // A grid vertex also needs a surface under its tucked place (the tuck stays below half a row).
+            var tucked = v < gridCount ? at + new Vec2(0, ((v % nx + v / nx) % 2 == 1 ? 0.5 : -0.5) * h) : at;
+            keep[v] = !trim || (FootprintTrim.Keeps(target, at) && FootprintTrim.Keeps(target, tucked));
+        }
         Vec3 Place(int v, double tuck)
         {
+            if (!keep[v]) return new Vec3(double.NaN, double.NaN, double.NaN);
             double x = fp.MinX + plan[2 * v], y = fp.MinY + plan[2 * v + 1];
             bool centre = v >= gridCount;
             // Midline end of the row above (k + j odd) or of the row below (even).
@@ -93,14 +105,18 @@ public static class WaterbombGenerator
         var layers = new VertexLayer[n];
         for (int v = 0; v < n; v++)
         {
-            Place(v, tucks[v]).Write(pos, v);
+            // A vertex the cut drops only needs a finite place until it is removed.
+            (keep[v] ? Place(v, tucks[v]) : new Vec3(fp.MinX + plan[2 * v], fp.MinY + plan[2 * v + 1], 0)).Write(pos, v);
             layers[v] = v >= gridCount ? VertexLayer.Top : VertexLayer.Bottom;
         }
+        const FamilyConstraints constraints = FamilyConstraints.Developability | FamilyConstraints.Kawasaki | FamilyConstraints.FoldSigns;
+        int anchor = CentreIndex(bases, rows, bases, rows / 2);
+        // Roles read from the drape: a crease the cut keeps inside has both its faces, all draped.
         var mesh = RegularMiuraSheet.AssignRolesFromGeometry(
             new CreaseMesh("waterbomb", pos, faces, layers, (_, _) => CreaseRole.Flat));
-        return new GeneratedPattern(mesh,
-            FamilyConstraints.Developability | FamilyConstraints.Kawasaki | FamilyConstraints.FoldSigns,
-            FairnessStencils(bases, rows), CentreIndex(bases, rows, bases, rows / 2), p.FoldDepth);
+        if (!trim) return new GeneratedPattern(mesh, constraints, FairnessStencils(bases, rows), anchor, p.FoldDepth);
+        var cut = FootprintTrim.Trim(mesh, keep, FairnessStencils(bases, rows), anchor);
+        return new GeneratedPattern(cut.Mesh, constraints, cut.FairnessStencils, cut.AnchorVertex, p.FoldDepth);
     }
 
     /// <summary>The tuck (fraction of the row height) at which the regular drape on a plane is developable:
@@ -158,7 +174,8 @@ public static class WaterbombGenerator
             return total;
         }
         double lo = 0, hi = 0.4999;
-        if (AngleSum(lo) > 2 * Math.PI || AngleSum(hi) < 2 * Math.PI) return planeTuck;
+        // A base the footprint cuts has a ring vertex without a place: it keeps the plane's tuck.
+        if (!double.IsFinite(AngleSum(lo)) || AngleSum(lo) > 2 * Math.PI || AngleSum(hi) < 2 * Math.PI) return planeTuck;
         for (int i = 0; i < 50; i++)
         {
             double mid = 0.5 * (lo + hi);

@@ -20,62 +20,103 @@ public static class YoshimuraGenerator
     public static GeneratedPattern Generate(ITargetSurface target, YoshimuraParameters p)
     {
         var fp = target.Footprint;
-        var (radius, yAxis) = VaultCircle(target);
-        if (Math.Max(Math.Abs(fp.MinY - yAxis), Math.Abs(fp.MaxY - yAxis)) >= radius)
-            throw new ArgumentException($"the footprint reaches {Math.Max(Math.Abs(fp.MinY - yAxis), Math.Abs(fp.MaxY - yAxis)):0.###} m from the vault axis but the vault radius is {radius:0.###} m; use a narrower footprint", nameof(target));
-        double th0 = Math.Asin((fp.MinY - yAxis) / radius), th1 = Math.Asin((fp.MaxY - yAxis) / radius);
+        var vault = Vault(target);
+        if (vault.Problem is { } problem) throw new ArgumentException(problem, nameof(target));
+        var (radius, th0, th1) = (vault.Radius, vault.Theta0, vault.Theta1);
         int segments = CellCounts.Resolve(p.Segments, p.CellSize, radius * (th1 - th0), nameof(p.Segments));
-        int rings = CellCounts.Resolve(p.Rings, p.CellSize, fp.Width, nameof(p.Rings));
-        var ring = new YoshimuraRing(radius, (th1 - th0) / segments, fp.Width / rings);
+        int rings = CellCounts.Resolve(p.Rings, p.CellSize, vault.Length, nameof(p.Rings));
+        var ring = new YoshimuraRing(radius, (th1 - th0) / segments, vault.Length / rings);
 
         var rowStart = RowStarts(segments, rings);
         int n = rowStart[^1];
         var pos = new double[3 * n];
         var layers = new VertexLayer[n];
+        bool trim = !fp.IsRectangle;
+        var keep = new bool[n];
         for (int j = 0; j <= rings; j++)
             for (int i = 0; i < RowLength(j, segments); i++)
             {
                 double theta = th0 + (i + (j % 2 == 1 ? 0.5 : 0)) * ring.ChordAngle;
-                double x = fp.MinX + j * ring.AxialPitch, y = yAxis + radius * Math.Sin(theta);
-                double z = target.HeightAt(x, y);
+                var plan = vault.Plan(vault.U0 + j * ring.AxialPitch, vault.WAxis + radius * Math.Sin(theta));
+                int v = rowStart[j] + i;
+                layers[v] = VertexLayer.Top;
+                keep[v] = !trim || FootprintTrim.Keeps(target, plan);
+                if (!keep[v]) { new Vec3(plan.X, plan.Y, 0).Write(pos, v); continue; }
+                double z = target.HeightAt(plan.X, plan.Y);
                 if (!double.IsFinite(z))
-                    throw new ArgumentException($"the pattern reaches ({x:0.###}, {y:0.###}) m where the target has no surface; use a smaller footprint", nameof(target));
-                new Vec3(x, y, z).Write(pos, rowStart[j] + i);
-                layers[rowStart[j] + i] = VertexLayer.Top;
+                    throw new ArgumentException($"the pattern reaches ({plan.X:0.###}, {plan.Y:0.###}) m where the target has no surface; use a smaller footprint", nameof(target));
+                new Vec3(plan.X, plan.Y, z).Write(pos, v);
             }
         var faces = Faces(segments, rings, rowStart);
-        var mesh = RegularMiuraSheet.AssignRolesFromGeometry(
-            new CreaseMesh("yoshimura", pos, faces, layers, (_, _) => CreaseRole.Flat));
         int mid = rings / 2;
         int anchor = rowStart[mid] + RowLength(mid, segments) / 2;
-        return new GeneratedPattern(mesh,
-            FamilyConstraints.Developability | FamilyConstraints.Kawasaki | FamilyConstraints.FoldSigns,
-            FairnessStencils(segments, rings, rowStart), anchor, 0);
+        var stencils = FairnessStencils(segments, rings, rowStart);
+        const FamilyConstraints constraints = FamilyConstraints.Developability | FamilyConstraints.Kawasaki | FamilyConstraints.FoldSigns;
+        // Roles read from the drape: a crease the cut keeps inside has both its faces, all draped.
+        var mesh = RegularMiuraSheet.AssignRolesFromGeometry(new CreaseMesh("yoshimura", pos, faces, layers, (_, _) => CreaseRole.Flat));
+        if (!trim) return new GeneratedPattern(mesh, constraints, stencils, anchor, 0);
+        var cut = FootprintTrim.Trim(mesh, keep, stencils, anchor);
+        return new GeneratedPattern(cut.Mesh, constraints, cut.FairnessStencils, cut.AnchorVertex, 0);
     }
 
     /// <summary>The closed-form ring a generated pattern uses on this target (radius, arc step, pitch).</summary>
     public static YoshimuraRing RingFor(ITargetSurface target, YoshimuraParameters p)
     {
-        var fp = target.Footprint;
-        var (radius, yAxis) = VaultCircle(target);
-        double th0 = Math.Asin((fp.MinY - yAxis) / radius), th1 = Math.Asin((fp.MaxY - yAxis) / radius);
-        int segments = CellCounts.Resolve(p.Segments, p.CellSize, radius * (th1 - th0), nameof(p.Segments));
-        int rings = CellCounts.Resolve(p.Rings, p.CellSize, fp.Width, nameof(p.Rings));
-        return new YoshimuraRing(radius, (th1 - th0) / segments, fp.Width / rings);
+        var vault = Vault(target);
+        if (vault.Problem is { } problem) throw new ArgumentException(problem, nameof(target));
+        int segments = CellCounts.Resolve(p.Segments, p.CellSize, vault.Radius * (vault.Theta1 - vault.Theta0), nameof(p.Segments));
+        int rings = CellCounts.Resolve(p.Rings, p.CellSize, vault.Length, nameof(p.Rings));
+        return new YoshimuraRing(vault.Radius, (vault.Theta1 - vault.Theta0) / segments, vault.Length / rings);
     }
 
-    /// <summary>Radius of the vault's cross-section circle and the y of its axis: exact for a
-    /// <see cref="CylinderSurface"/>, otherwise the osculating circle across the footprint centre.</summary>
-    private static (double Radius, double YAxis) VaultCircle(ITargetSurface target)
+    /// <summary>Why this family cannot be built on the target, or null when it can: the advice asks this
+    /// so that it never calls the family suited where the generator refuses.</summary>
+    public static string? Problem(ITargetSurface target) => Vault(target).Problem;
+
+    /// <summary>The vault the pattern is inscribed in: its axis in plan (along x, or along y when the
+    /// target curves across x), the frame (u along the axis, w across it) that maps to plan by a quarter
+    /// turn when the axis runs along y, the cross-section circle's radius and axis position w, and the
+    /// footprint's extent in that frame.</summary>
+    private sealed record VaultFrame(bool AxisAlongY, double Radius, double WAxis, double U0, double U1, double W0, double W1, string? Problem)
     {
-        if (target is CylinderSurface c) return (c.Radius, 0);
+        public double Length => U1 - U0;
+        public double Theta0 => Math.Asin((W0 - WAxis) / Radius);
+        public double Theta1 => Math.Asin((W1 - WAxis) / Radius);
+        // A quarter turn (x, y) = (-w, u) keeps faces counter-clockwise.
+        public Vec2 Plan(double u, double w) => AxisAlongY ? new Vec2(-w, u) : new Vec2(u, w);
+    }
+
+    /// <summary>The vault frame: exact for a <see cref="CylinderSurface"/> (axis along x through the
+    /// origin); otherwise the axis runs across the direction in which the target bends more at the
+    /// footprint centre (second differences of the height, x against y) and the circle is the osculating
+    /// one there (1 / largest principal curvature).</summary>
+    private static VaultFrame Vault(ITargetSurface target)
+    {
         var fp = target.Footprint;
         double cx = 0.5 * (fp.MinX + fp.MaxX), cy = 0.5 * (fp.MinY + fp.MaxY);
-        var k = target.CurvaturesAt(cx, cy);
-        double kMax = Math.Max(Math.Abs(k.K1), Math.Abs(k.K2));
-        if (!(kMax > 1e-9))
-            throw new ArgumentException("the target is flat across its centre; a Yoshimura pattern needs a vault (a cylinder-like surface curved across y)", nameof(target));
-        return (1 / kMax, cy);
+        double radius, wAxis;
+        bool alongY = false;
+        if (target is CylinderSurface c) (radius, wAxis) = (c.Radius, 0);
+        else
+        {
+            var k = target.CurvaturesAt(cx, cy);
+            double kMax = Math.Max(Math.Abs(k.K1), Math.Abs(k.K2));
+            if (!(kMax > 1e-9))
+                return new VaultFrame(false, 0, 0, 0, 0, 0, 0, "the target is flat across its centre; a Yoshimura pattern needs a vault (a cylinder-like surface curved one way at its centre); use miura or free-triangulated");
+            double step = 1e-3 * Math.Max(fp.Width, fp.Depth), z0 = target.HeightAt(cx, cy);
+            double zxx = Math.Abs(target.HeightAt(cx + step, cy) - 2 * z0 + target.HeightAt(cx - step, cy));
+            double zyy = Math.Abs(target.HeightAt(cx, cy + step) - 2 * z0 + target.HeightAt(cx, cy - step));
+            alongY = zxx > zyy;
+            radius = 1 / kMax;
+            wAxis = alongY ? -cx : cy;
+        }
+        var frame = alongY
+            ? new VaultFrame(true, radius, wAxis, fp.MinY, fp.MaxY, -fp.MaxX, -fp.MinX, null)
+            : new VaultFrame(false, radius, wAxis, fp.MinX, fp.MaxX, fp.MinY, fp.MaxY, null);
+        double reach = Math.Max(Math.Abs(frame.W0 - wAxis), Math.Abs(frame.W1 - wAxis));
+        if (reach >= radius)
+            return frame with { Problem = $"the footprint reaches {reach:0.###} m from the vault axis but the vault radius is {radius:0.###} m; use a narrower footprint" };
+        return frame;
     }
 
     private static int RowLength(int j, int segments) => j % 2 == 0 ? segments + 1 : segments;
