@@ -33,7 +33,18 @@ internal static class Commands
             HelpName = "DIR",
         };
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress lines, only the result and errors." };
-        var seed = new Option<int?>("--seed") { Description = "Seed for random choices, overriding the job's seed and fitting.seed.", HelpName = "N" };
+        var seed = new Option<int?>("--seed")
+        {
+            Description = "Seed for random choices, overriding the job's seed and fitting.seed.",
+            HelpName = "N",
+            CustomParser = r =>
+            {
+                string text = r.Tokens.Count > 0 ? r.Tokens[0].Value : "";
+                if (int.TryParse(text, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int n)) return n;
+                r.AddError($"--seed must be a whole number >= 0, e.g. --seed 7 (got \"{text}\")");
+                return null;
+            },
+        };
         var accept = new Option<bool>("--accept-unconverged") { Description = "Write outputs even when the fit does not converge." };
         var cmd = new Command("build", "Build a job: target, tessellation, fit, checks, sheets; write every output file.")
         {
@@ -116,7 +127,14 @@ internal static class Commands
     private static Command CatalogVerb(TextWriter stdout)
     {
         var what = new Argument<string>("list") { Description = "targets, families, materials or sheets." };
-        what.AcceptOnlyFromAmong("targets", "families", "materials", "sheets");
+        string[] lists = ["targets", "families", "materials", "sheets"];
+        what.Validators.Add(r =>
+        {
+            string given = r.Tokens.Count > 0 ? r.Tokens[0].Value : "";
+            if (lists.Contains(given, StringComparer.Ordinal)) return;
+            string? near = EditDistance.Nearest(given, lists);
+            r.AddError($"catalog has no list '{given}'; {(near is null ? "" : $"did you mean '{near}'? ")}choose targets, families, materials or sheets");
+        });
         var cmd = new Command("catalog", "List what a job can name: target kinds, tessellation families, materials or sheet sizes.") { what };
         cmd.SetAction(r =>
         {

@@ -66,6 +66,8 @@ public static partial class JobLoader
 
     private static Job Parse(string json, string sourceName, string baseDirectory, ICollection<string>? known)
     {
+        if (string.IsNullOrWhiteSpace(json.Trim('\uFEFF')))
+            throw new JobError(sourceName, "is empty; a job file is a JSON object with at least a target, and 'tessel scaffold --target plane --family miura' writes one to start from");
         JsonDocument doc;
         try { doc = JsonDocument.Parse(json, Options); }
         catch (JsonException e)
@@ -74,6 +76,9 @@ public static partial class JobLoader
             string why = e.Message;
             int cut = why.IndexOf(" LineNumber:", StringComparison.Ordinal);
             if (cut > 0) why = why[..cut].TrimEnd('.', ' ');
+            // The reader's own parameter names mean nothing to someone editing a job file.
+            int inner = why.IndexOf(", when isFinalBlock", StringComparison.Ordinal);
+            if (inner > 0) why = why[..inner];
             throw new JobError($"{sourceName}:{line}:{col}", $"malformed JSON: {why}");
         }
         using (doc)

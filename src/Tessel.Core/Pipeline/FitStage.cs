@@ -42,7 +42,7 @@ public static class FitStage
         }
         if (!fit.Mesh.Positions.All(double.IsFinite))
             throw new FitBreakdownError("the fit produced non-finite vertex positions; check the target's size and units and the tessellation's cell size", new ArithmeticException());
-        progress.Step($"{(fit.Converged ? "converged" : "NOT converged")} ({fit.StopReason}) after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, max constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
+        progress.Step($"{(fit.Converged ? "converged" : "NOT converged")} ({Wording.StopDetail(fit.StopReason)}) after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, max constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
 
         var front = new List<ParetoPoint>();
         var sweep = job.Fitting.EpsilonSweepDeg;

@@ -94,7 +94,7 @@ public static class SheetStage
         var cover = SheetAnnotations.CoverSheet(0, settings.Sheet.WidthMm, settings.Sheet.HeightMm, settings.MarginMm,
             content with { IncludeCautions = true }, styles, used).Sheet;
         var fig = layout.Figures;
-        progress.Step($"{fig.PartCount} part(s) on {fig.SheetCount} sheet(s), {layout.Seams.Length} seam(s), laser about {fig.EstimatedLaserSeconds / 60:0.#} min");
+        progress.Step($"{Wording.Count(fig.PartCount, "part")} on {Wording.Count(fig.SheetCount, "sheet")}, {Wording.Count(layout.Seams.Length, "seam")}, laser about {fig.EstimatedLaserSeconds / 60:0.#} min");
         return new SheetStageResult(settings, styles, layout, annotated, cover);
     }
 

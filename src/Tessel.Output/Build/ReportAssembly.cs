@@ -24,7 +24,7 @@ public static class ReportAssembly
             new("Target", target.Description),
             new("Family", $"{mesh.Family}: {mesh.VertexCount} vertices, {mesh.FaceCount} facets"),
             new("Scale", $"1:{job.Fabrication.Scale.ToString("0.###", Inv)}"),
-            new("Fit", $"{(f.Converged ? "converged" : "NOT converged")} ({f.StopReason}), {f.History.Count} steps"),
+            new("Fit", $"{(f.Converged ? "converged" : "NOT converged")} ({Wording.StopDetail(f.StopReason)}), {Wording.Count(f.History.Count, "step")}"),
             new("Shape error RMS / max", $"{Mm(f.Shape.Rms)} / {Mm(f.Shape.Max)} mm full scale"),
             new("Developability residual", $"{f.Residuals.MaxDevelopability.ToString("0.##E+0", Inv)} rad (epsilon {f.EpsilonDeg.ToString("0.###", Inv)} deg)"),
             new("Kawasaki residual", $"{f.Residuals.MaxKawasaki.ToString("0.##E+0", Inv)} rad"),
@@ -39,7 +39,7 @@ public static class ReportAssembly
         if (sheets is not null)
         {
             var sf = sheets.Layout.Figures;
-            rows.Add(new("Sheets", $"{sf.SheetCount} x {sheets.Settings.Sheet.Name}, {sf.PartCount} parts, {sheets.Layout.Seams.Length} seams"));
+            rows.Add(new("Sheets", $"{sf.SheetCount} x {sheets.Settings.Sheet.Name}, {Wording.Count(sf.PartCount, "part")}, {Wording.Count(sheets.Layout.Seams.Length, "seam")}"));
             rows.Add(new("Cut / score / perforation", $"{M(sf.TotalCutLengthMm)} / {M(sf.ScoreLengthMm + sf.BackScoreLengthMm)} / {M(sf.PerforationCutLengthMm)} m"));
             rows.Add(new("Laser time (estimate)", $"{(sf.EstimatedLaserSeconds / 60).ToString("0.#", Inv)} min"));
         }

@@ -60,7 +60,7 @@ public static class ReverseCurvatureGenerator
                 if (!double.IsFinite(z))
                 {
                     if (i % 2 == 1 && p.Grading != 0)
-                        throw new ArgumentException($"the graded sheet reaches ({plan.X:0.###}, {plan.Y:0.###}) m where the target has no surface; use a smaller Grading or footprint", nameof(p.Grading));
+                        throw new ArgumentException($"the graded sheet reaches ({plan.X:0.###}, {plan.Y:0.###}) m where the target has no surface; use more cells (tessellation.cellsX and cellsY) or a smaller target.footprint", nameof(p.Grading));
                     // Where the plain drape had to clamp (zig-zag overhang of a footprint-only target), keep it.
                     Vec3.Read(mesh.Positions, k).Write(pos, k);
                     continue;
