@@ -69,10 +69,16 @@ public static class SheetStage
         progress.Stage("sheets", $"laying out at 1:{job.Fabrication.Scale:0.###} on {job.Fabrication.Sheet.Name ?? "custom"} sheets");
         var styles = StylesFor(job);
         var plain = SettingsFor(job);
-        var stripContent = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false);
+        var stripContent = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false, CautionLine: true);
         double stripWidth = plain.Sheet.WidthMm - 2 * plain.MarginMm;
         var classes = new[] { LineClass.CutOutline, LineClass.Mountain, LineClass.Valley, LineClass.TabFold, LineClass.Label };
-        double strip = SheetAnnotations.RequiredStripHeight(stripWidth, stripContent, styles, classes);
+        string[] fileTypes = FileTypes(job);
+        // The strip is as tall as the tallest sheet needs: a front and a back job carry a note about each other.
+        var sample = new Sheet(1, plain.Sheet.WidthMm, plain.Sheet.HeightMm, []);
+        double strip = new[] { sample, sample with { Side = "back" } }
+            .Select(s => SheetAnnotations.RequiredStripHeight(stripWidth,
+                stripContent with { KeyNotes = plain.NeedsBackJob ? PairNotes(s, plain, fileTypes) : null }, styles, classes))
+            .Max();
         var settings = SettingsFor(job, strip);
         // Perforation dashes stay on their fold's layer (so the maker still sees mountain from valley);
         // that layer then has to be cut through, not scored.
@@ -87,15 +93,38 @@ public static class SheetStage
         }
         int sheetCount = layout.Sheets.Select(s => s.Number).Distinct().Count();
         var content = stripContent with { SheetCount = sheetCount };
+        bool twoJobs = layout.Sheets.Any(s => s.Side != "front");
         var annotated = layout.Sheets
-            .Select(s => SheetAnnotations.AddToStrip(s, settings.AnnotationStrip, content, styles).Sheet)
+            .Select(s => SheetAnnotations.AddToStrip(s, settings.AnnotationStrip,
+                content with { KeyNotes = twoJobs ? PairNotes(s, settings, fileTypes) : null }, styles).Sheet)
             .ToArray();
-        var used = layout.Sheets.SelectMany(s => s.Lines.Select(l => l.Class)).Distinct().ToArray();
-        var cover = SheetAnnotations.CoverSheet(0, settings.Sheet.WidthMm, settings.Sheet.HeightMm, settings.MarginMm,
-            content with { IncludeCautions = true }, styles, used).Sheet;
+        var cover = AssemblyGuide.Cover(settings.Sheet.WidthMm, settings.Sheet.HeightMm, settings.MarginMm,
+            content with { IncludeCautions = true, CautionLine = false }, styles, layout, flat, fileTypes).Sheet;
         var fig = layout.Figures;
         progress.Step($"{Wording.Count(fig.PartCount, "part")} on {Wording.Count(fig.SheetCount, "sheet")}, {Wording.Count(layout.Seams.Length, "seam")}, laser about {fig.EstimatedLaserSeconds / 60:0.#} min");
         return new SheetStageResult(settings, styles, layout, annotated, cover);
+    }
+
+    /// <summary>File extensions written for each sheet job, in the order the writers run.</summary>
+    public static string[] FileTypes(Job job) =>
+        new[] { (job.Outputs.Svg, ".svg"), (job.Outputs.Dxf, ".dxf"), (job.Outputs.Png, ".png") }
+            .Where(t => t.Item1).Select(t => t.Item2).ToArray();
+
+    /// <summary>What a front job says about its back job and the other way round, so that someone who
+    /// prints or cuts one file learns that the other exists and which it is.</summary>
+    public static string[] PairNotes(Sheet sheet, FabricationSettings settings, IReadOnlyList<string> fileTypes)
+    {
+        string types = fileTypes.Count == 0 ? "" : " (" + string.Join(" ", fileTypes) + ")";
+        var onBack = new List<string>();
+        if (settings.MethodFor(CreaseRole.Mountain) == FoldMethod.ScoreFromBack) onBack.Add("mountain");
+        if (settings.MethodFor(CreaseRole.Valley) == FoldMethod.ScoreFromBack) onBack.Add("valley");
+        if (settings.TabFoldMethod == FoldMethod.ScoreFromBack) onBack.Add("glue tab");
+        string what = onBack.Count == 0 ? "the labels" : string.Join(" and ", onBack) + " folds" + (settings.LabelsOnBack ? " and the labels" : "");
+        var front = sheet with { Side = "front" };
+        var back = sheet with { Side = "back" };
+        return sheet.Side == "front"
+            ? [$"BACK JOB: {what} are in {SheetFiles.BaseName(back)}{types}, run first; this front job shows only the rest. See the cover."]
+            : [$"BACK JOB of {SheetFiles.BaseName(front)}: run first, then turn the sheet over left to right onto the same corner stop for {SheetFiles.BaseName(front)}. See the cover."];
     }
 
     /// <summary>The job's fold method; null ("material") leaves the material preset's choice.</summary>

@@ -145,8 +145,7 @@ public static class ModelOutputs
     }
 
     /// <summary>"sheet-01" for a front job, "sheet-01-back" for the mirrored back job.</summary>
-    public static string SheetFileName(Sheet sheet) =>
-        $"sheet-{sheet.Number.ToString("00", Inv)}{(sheet.Side == "front" ? "" : "-" + sheet.Side)}";
+    public static string SheetFileName(Sheet sheet) => SheetFiles.BaseName(sheet);
 
     private static byte[] Bytes(ISheetWriter writer, IReadOnlyList<Sheet> sheets, LineStyleTable styles)
     {
@@ -212,7 +211,8 @@ public static class ModelOutputs
         }
         // A legend strip under the pattern (title, print check, line legend), at least wide enough for it.
         var styles = SheetStage.StylesFor(job);
-        var content = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false);
+        var content = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false,
+            Heading: "CREASE PATTERN OF THE WHOLE MODEL - A DRAWING, NOT A SHEET TO CUT");
         double width = Math.Max((maxX - minX) * k + 2 * border, MinimumLegendWidthMm + 2 * border);
         var classes = lines.Select(l => l.Class).Distinct().ToArray();
         double strip = SheetAnnotations.RequiredStripHeight(width - 2 * border, content, styles, classes);
