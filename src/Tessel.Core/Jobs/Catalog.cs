@@ -48,6 +48,7 @@ public static class Catalog
         new("score", "half-depth score from the front"),
         new("perforate", "through-cut dashes with uncut bridges; folds either way"),
         new("two-sided", "half-depth score from the back, in a mirrored second job, so the scored side ends up outside"),
+        new("hand-score", "no laser: drawn on the front sheet, printed (PDF, PNG) at 0.35 mm so it reads on paper; score by hand along a steel rule"),
     ];
 
     /// <summary>Which vertices fitting pins to the target (fitting.anchors).</summary>

@@ -9,7 +9,13 @@ namespace Tessel.Core.Pipeline;
 /// <param name="Sheets">Part sheets in job order, each with its title, print check and legend strip.</param>
 /// <param name="Cover">A sheet with the full legend and the safety cautions.</param>
 public sealed record SheetStageResult(FabricationSettings Settings, LineStyleTable Styles, SheetLayoutResult Layout,
-    IReadOnlyList<Sheet> Sheets, Sheet Cover);
+    IReadOnlyList<Sheet> Sheets, Sheet Cover)
+{
+    /// <summary>Styles for the outputs meant for a printer (PDF, PNG): <see cref="Styles"/>, or with
+    /// <see cref="SheetStage.HandScore"/> folds the same table at <see cref="SheetStage.PrintLineMm"/>.
+    /// Files for a cutter (SVG, DXF) always keep <see cref="Styles"/> and its hairlines.</summary>
+    public LineStyleTable PrintStyles { get; init; } = Styles;
+}
 
 /// <summary>Sixth stage: flat pattern -> fabrication sheets at model scale.</summary>
 public static class SheetStage
@@ -64,6 +70,15 @@ public static class SheetStage
         return table;
     }
 
+    /// <summary>Job-file fold method for hand work: the fold is drawn on the front sheet (no back job) and
+    /// the printed files use <see cref="PrintLineMm"/> so that it can be seen and scored along a rule.</summary>
+    public const string HandScore = "hand-score";
+
+    /// <summary>Line width of printed sheets for hand scoring: 0.35 mm, a usual ISO 128-20 line width that
+    /// stays legible on an office print (hairlines of 0.05 mm print faint or not at all); the dash unit
+    /// follows it, as ISO 128-20 states dash lengths in multiples of the line width.</summary>
+    public const double PrintLineMm = 0.35;
+
     public static SheetStageResult Run(Job job, FlatPattern flat, ProgressReporter progress)
     {
         progress.Stage("sheets", $"laying out at 1:{job.Fabrication.Scale:0.###} on {job.Fabrication.Sheet.Name ?? "custom"} sheets");
@@ -102,7 +117,9 @@ public static class SheetStage
             content with { IncludeCautions = true, CautionLine = false }, styles, layout, flat, fileTypes).Sheet;
         var fig = layout.Figures;
         progress.Step($"{Wording.Count(fig.PartCount, "part")} on {Wording.Count(fig.SheetCount, "sheet")}, {Wording.Count(layout.Seams.Length, "seam")}, laser about {fig.EstimatedLaserSeconds / 60:0.#} min");
-        return new SheetStageResult(settings, styles, layout, annotated, cover);
+        bool byHand = job.Fabrication.FoldMethod.Mountain == HandScore || job.Fabrication.FoldMethod.Valley == HandScore;
+        var print = byHand ? styles.WithStrokeWidth(PrintLineMm).WithDashUnit(PrintLineMm) : styles;
+        return new SheetStageResult(settings, styles, layout, annotated, cover) { PrintStyles = print };
     }
 
     /// <summary>File extensions written for each sheet job, in the order the writers run.</summary>
@@ -133,6 +150,7 @@ public static class SheetStage
         "score" => FoldMethod.Score,
         "perforate" => FoldMethod.Perforate,
         "two-sided" => FoldMethod.ScoreFromBack,
+        HandScore => FoldMethod.Score,
         _ => null,
     };
 }

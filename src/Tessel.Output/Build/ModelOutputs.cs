@@ -130,16 +130,18 @@ public static class ModelOutputs
             bool wanted = format switch { "svg" => job.Outputs.Svg, "dxf" => job.Outputs.Dxf, "pdf" => job.Outputs.Pdf, _ => job.Outputs.Png };
             if (!wanted) continue;
             var writer = SheetWriterFormats.Create(format);
+            // Files for a printer get the print weights; files for a cutter keep hairlines.
+            var styles = format is "pdf" or "png" ? sheets.PrintStyles : sheets.Styles;
             if (writer.OneFilePerSheet)
             {
-                if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], sheets.Styles));
+                if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], styles));
                 foreach (var sheet in sheets.Sheets)
-                    output.AddFile($"sheets/{SheetFileName(sheet)}{writer.FileExtension}", Bytes(writer, [sheet], sheets.Styles));
+                    output.AddFile($"sheets/{SheetFileName(sheet)}{writer.FileExtension}", Bytes(writer, [sheet], styles));
             }
             else
             {
                 var pdf = new PdfSheetWriter { Title = $"Tessel sheets: {job.Name}" };
-                output.AddFile("sheets/sheets.pdf", Bytes(pdf, [sheets.Cover, .. sheets.Sheets], sheets.Styles));
+                output.AddFile("sheets/sheets.pdf", Bytes(pdf, [sheets.Cover, .. sheets.Sheets], styles));
             }
         }
     }
