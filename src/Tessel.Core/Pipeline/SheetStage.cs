@@ -79,22 +79,48 @@ public static class SheetStage
     /// follows it, as ISO 128-20 states dash lengths in multiples of the line width.</summary>
     public const double PrintLineMm = 0.35;
 
-    public static SheetStageResult Run(Job job, FlatPattern flat, ProgressReporter progress)
+    /// <summary>The settings the layout runs with: <see cref="SettingsFor"/> with room kept for the
+    /// annotation strip, as tall as the tallest sheet needs (a front and a back job carry a note about
+    /// each other).</summary>
+    public static FabricationSettings PlannedSettings(Job job)
     {
-        progress.Stage("sheets", $"laying out at 1:{job.Fabrication.Scale:0.###} on {job.Fabrication.Sheet.Name ?? "custom"} sheets");
         var styles = StylesFor(job);
         var plain = SettingsFor(job);
-        var stripContent = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false, CautionLine: true);
+        var stripContent = StripContent(job);
         double stripWidth = plain.Sheet.WidthMm - 2 * plain.MarginMm;
         var classes = new[] { LineClass.CutOutline, LineClass.Mountain, LineClass.Valley, LineClass.TabFold, LineClass.Label };
         string[] fileTypes = FileTypes(job);
-        // The strip is as tall as the tallest sheet needs: a front and a back job carry a note about each other.
         var sample = new Sheet(1, plain.Sheet.WidthMm, plain.Sheet.HeightMm, []);
         double strip = new[] { sample, sample with { Side = "back" } }
             .Select(s => SheetAnnotations.RequiredStripHeight(stripWidth,
                 stripContent with { KeyNotes = plain.NeedsBackJob ? PairNotes(s, plain, fileTypes) : null }, styles, classes))
             .Max();
-        var settings = SettingsFor(job, strip);
+        return SettingsFor(job, strip);
+    }
+
+    private static AnnotationContent StripContent(Job job) =>
+        new(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false, CautionLine: true);
+
+    /// <summary>For <c>"scale": "auto"</c>: the job at the chosen scale, with the reason in
+    /// <see cref="FabricationSpec.ScaleReason"/>; any other job unchanged.</summary>
+    public static Job ResolveScale(Job job, FlatPattern flat, ProgressReporter progress)
+    {
+        if (!job.Fabrication.AutoScale) return job;
+        progress.Stage("scale", $"choosing a common scale for {Wording.Count(job.Fabrication.MaxSheets, "sheet")} of {job.Fabrication.Sheet.Name ?? "custom"}");
+        Job At(double n) => job with { Fabrication = job.Fabrication with { Scale = n } };
+        var choice = ScaleChooser.Choose(flat, n => PlannedSettings(At(n)), job.Fabrication.MaxSheets,
+            (f, settings) => SheetLayout.Lay(f, settings).Sheets.Select(s => s.Number).Distinct().Count());
+        progress.Step(choice.Reason);
+        return job with { Fabrication = job.Fabrication with { Scale = choice.Denominator, ScaleReason = choice.Reason } };
+    }
+
+    public static SheetStageResult Run(Job job, FlatPattern flat, ProgressReporter progress)
+    {
+        progress.Stage("sheets", $"laying out at 1:{job.Fabrication.Scale:0.###} on {job.Fabrication.Sheet.Name ?? "custom"} sheets");
+        var styles = StylesFor(job);
+        var stripContent = StripContent(job);
+        string[] fileTypes = FileTypes(job);
+        var settings = PlannedSettings(job);
         // Perforation dashes stay on their fold's layer (so the maker still sees mountain from valley);
         // that layer then has to be cut through, not scored.
         foreach (var (role, cls) in new[] { (CreaseRole.Mountain, LineClass.Mountain), (CreaseRole.Valley, LineClass.Valley) })

@@ -1,6 +1,8 @@
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
+using Tessel.Core.Fitting.Sparse;
 using Tessel.Core.Targets;
+using Tessel.Core.Unfolding;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
 using Tessel.Output.Report;
@@ -42,7 +44,8 @@ public static class BuildRunner
         var output = new BuildOutput();
         output.AddFigure("job", "seed", (long)job.Seed);
         output.AddFigure("job", "family", job.Tessellation.Family);
-        output.AddFigure("job", "scale", job.Fabrication.Scale);
+        if (job.Fabrication.AutoScale) output.AddFigure("job", "scale", "auto");
+        else output.AddFigure("job", "scale", job.Fabrication.Scale);
 
         var targetStage = TargetStage.Run(job, HeightMapImage.Decode, progress);
         AddTarget(output, job, targetStage, progress);
@@ -65,6 +68,14 @@ public static class BuildRunner
         }
         var sheetSettings = SheetStage.SettingsFor(job);
         var fit = FitStage.Run(job, tessellation.Pattern, target, progress);
+        FlatPattern? unfolded = null;
+        if (job.Fabrication.AutoScale)
+        {
+            unfolded = MeshUnfolder.Unfold(fit.Fit.Mesh, new AutoSolver());
+            job = SheetStage.ResolveScale(job, unfolded, progress);
+            output.AddFigure("sheets", "chosenScale", job.Fabrication.Scale);
+            output.AddFigure("sheets", "chosenScaleReason", job.Fabrication.ScaleReason!);
+        }
         ModelOutputs.AddFit(output, job, tessellation, fit);
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
@@ -80,7 +91,7 @@ public static class BuildRunner
         }
 
         double strainLimit = sheetSettings.Material.StrainLimit;
-        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress, tessellation.Pattern.Envelope);
+        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress, tessellation.Pattern.Envelope, unfolded);
         ModelOutputs.AddChecks(output, job, checks, strainLimit);
         if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
         if (checks.Strain.FacetsOverLimit.Length > 0)

@@ -23,7 +23,7 @@ public static class ReportAssembly
         {
             new("Target", target.Description),
             new("Family", $"{mesh.Family}: {mesh.VertexCount} vertices, {mesh.FaceCount} facets"),
-            new("Scale", $"1:{job.Fabrication.Scale.ToString("0.###", Inv)}"),
+            new("Scale", job.Fabrication.ScaleReason is { } why ? $"auto, {why}" : $"1:{job.Fabrication.Scale.ToString("0.###", Inv)}"),
             new("Fit", $"{(f.Converged ? "converged" : "NOT converged")} ({Wording.StopDetail(f.StopReason)}), {Wording.Count(f.History.Count, "step")}"),
             new("Shape error RMS / max", $"{Mm(f.Shape.Rms)} / {Mm(f.Shape.Max)} mm full scale"),
             new("Developability residual", $"{f.Residuals.MaxDevelopability.ToString("0.##E+0", Inv)} rad (epsilon {f.EpsilonDeg.ToString("0.###", Inv)} deg)"),
