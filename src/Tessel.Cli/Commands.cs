@@ -63,9 +63,25 @@ internal static class Commands
             }
             if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
             string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);
-            var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
-            var output = BuildRunner.Collect(loaded, progress);
-            var result = BuildRunner.Write(output, loaded, folder, progress);
+            // A status line rewritten in place only where a person watches a terminal; logs get plain lines.
+            bool live = ReferenceEquals(stderr, Console.Error) && !Console.IsErrorRedirected
+                && Environment.GetEnvironmentVariable("TERM") is not "dumb";
+            var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr, live);
+            BuildOutput output;
+            BuildResult result;
+            var ticker = new Timer(_ => progress.Tick(), null, 1000, 1000);
+            try
+            {
+                output = BuildRunner.Collect(loaded, progress);
+                result = BuildRunner.Write(output, loaded, folder, progress);
+            }
+            finally
+            {
+                // Wait for a tick in flight, so that no status line follows the result.
+                using var stopped = new ManualResetEvent(false);
+                if (ticker.Dispose(stopped)) stopped.WaitOne();
+                progress.Finish();
+            }
             if (output.Terminal is not null && !r.GetValue(quiet)) stdout.WriteLine(output.Terminal.TrimEnd('\n'));
             if (output.Problem is not null)
             {

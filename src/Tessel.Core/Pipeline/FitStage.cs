@@ -34,7 +34,7 @@ public static class FitStage
         FitResult fit;
         try
         {
-            fit = MultiStartFitter.Fit(pattern, target, settings, EpsilonConstraintFitter.DefaultSolver);
+            fit = MultiStartFitter.Fit(pattern, target, progress.Observe(settings), EpsilonConstraintFitter.DefaultSolver);
         }
         catch (Exception e) when (Breakdown(e) is { } cause)
         {
@@ -52,7 +52,7 @@ public static class FitStage
             progress.Step($"sweeping epsilon over {order.Length} values");
             try
             {
-                front.AddRange(ParetoSweep.Run(pattern, target, settings with { Starts = 1 }, order, EpsilonConstraintFitter.DefaultSolver()).Front);
+                front.AddRange(ParetoSweep.Run(pattern, target, progress.Observe(settings with { Starts = 1 }), order, EpsilonConstraintFitter.DefaultSolver()).Front);
             }
             catch (Exception e) when (Breakdown(e) is { } cause)
             {
