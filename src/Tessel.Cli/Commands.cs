@@ -135,6 +135,22 @@ internal static class Commands
                 throw new OutputNotWritableError(dir ?? path, e.Message, e);
             }
             stdout.WriteLine($"wrote {path}");
+            // Height-map and mesh jobs name an input file: write an invented example beside the job
+            // (never over an existing file) so that the scaffold builds as written.
+            if (ScaffoldInputs.For(kind) is var (name, bytes))
+            {
+                string input = Path.Combine(dir ?? ".", name);
+                if (File.Exists(input)) stdout.WriteLine($"kept {input} (the job names it)");
+                else
+                {
+                    try { AtomicFile.Write(input, bytes); }
+                    catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                    {
+                        throw new OutputNotWritableError(dir ?? input, e.Message, e);
+                    }
+                    stdout.WriteLine($"wrote {input} (an invented example input; replace it with your own)");
+                }
+            }
             return ExitCodes.Ok;
         });
         return cmd;

@@ -69,14 +69,16 @@ public static class JobScaffold
             "height-map" => """
                     // Grayscale PNG (relative to this file): black = minHeight, white = maxHeight.
                     // Rows run from the far (+y) edge to the near edge; the image spans imageWidth x imageDepth.
+                    // 'tessel scaffold' wrote an invented example beside this file: a shallow dome. Replace it.
                     "image": "site-heights.png",
                     "imageWidth": 20,
                     "imageDepth": 15,
-                    "minHeight": 0,
+                    "minHeight": 1.8,
                     "maxHeight": 3,
                 """,
             _ => """
                     // OBJ or STL file (relative to this file) seen from above, in the units above.
+                    // 'tessel scaffold' wrote an invented example beside this file: a shallow dome. Replace it.
                     "mesh": "canopy.obj",
                 """,
         });
@@ -101,8 +103,9 @@ public static class JobScaffold
               "tessellation": {
                 // {{string.Join(", ", Catalog.Families.Select(f => f.Name))}}
                 "family": "{{family}}",
-                "cellsX": 12,
-                "cellsY": 10,
+                // Few cells build in seconds; raise them once the job builds.
+                "cellsX": 6,
+                "cellsY": 5,
                 // Acute sector angle of the starting cell, degrees.
                 "sectorAngleDeg": 60,
                 "orientationDeg": 0,
@@ -111,15 +114,17 @@ public static class JobScaffold
               "fitting": {
                 // Allowed developability residual per vertex in degrees; 0 = exact.
                 "epsilonDeg": 0,
-                "starts": 4,
+                "starts": 2,
                 "maxIterations": 300,
                 "anchors": "none",
                 "bounds": { "minSectorAngleDeg": 5, "maxSectorAngleDeg": 175, "minEdgeLengthMm": 3 },
               },
 
               "fabrication": {
-                // Model scale 1:n.
-                "scale": 100,
+                // Model scale 1:n, or "auto": the largest common scale whose facets are at least
+                // 10 x the material's thickness with the parts on maxSheets sheets.
+                "scale": "auto",
+                "maxSheets": 1,
                 // See 'tessel catalog materials'.
                 "material": "card",
                 "foldMethod": { "mountain": "material", "valley": "material" },

@@ -116,6 +116,9 @@ public static class BuildRunner
         {
             progress.Stage("report", "previews, report.html and summary.md");
             var model = ReportAssembly.Build(job, target, tessellation, fit, checks, sheets, warnings);
+            // The report links every file of the build: those made so far, its own, and summary.json.
+            var own = ReportFiles.Contents(model).Select(c => c.Name);
+            model = model with { Files = [.. output.Files.Select(f => f.Path), .. own, "summary.json"] };
             foreach (var (name, bytes) in ReportFiles.Contents(model)) output.AddFile(name, bytes);
             output.Terminal = TerminalSummary.Format(model);
         }
