@@ -121,6 +121,7 @@ internal static class Commands
         {
             string kind = r.GetRequiredValue(target), fam = r.GetRequiredValue(family);
             string text = JobScaffold.Text(kind, fam);
+            RefuseUnsuited(text, kind, fam);
             string path = Path.GetFullPath(r.GetValue(outFile) ?? $"{kind}-{fam}.json");
             if (File.Exists(path) || Directory.Exists(path))
                 throw new JobError(path, "already exists; scaffold never overwrites, so choose another --out or move the file");
@@ -199,11 +200,49 @@ internal static class Commands
         {
             var loaded = JobLoader.Load(r.GetRequiredValue(job));
             var target = TargetFactory.Build(loaded.Target, loaded.BaseDirectory, HeightMapImage.Decode);
+            CheckFamilyServes(loaded, target);
             var f = target.Footprint;
             stdout.WriteLine($"OK {loaded.Name}: {target.Description}; footprint {f.Width:0.###} x {f.Depth:0.###} m; family {loaded.Tessellation.Family}");
             return ExitCodes.Ok;
         });
         return cmd;
+    }
+
+    /// <summary>Generates the job's pattern on its target (no fit): a family that cannot make a pattern
+    /// there is refused as bad input, naming a family that suits the target.</summary>
+    internal static void CheckFamilyServes(Job job, ITargetSurface target)
+    {
+        try { TessellationStage.Run(job, target, ProgressReporter.Silent); }
+        catch (JobError e)
+        {
+            var curvature = Tessel.Core.Tessellation.CurvatureFigures.Sample(target);
+            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(job.Tessellation.Family, curvature);
+            // The family's own advice may call the pairing fine in general; then name the first other
+            // family that suits this target's curvature.
+            string? better = advice.Better ?? Catalog.Families.Select(f => f.Name)
+                .Where(f => f != job.Tessellation.Family)
+                .FirstOrDefault(f => Tessel.Core.Tessellation.FamilyAdvice.For(f, curvature).Suits);
+            throw new JobError(e.Where, e.Problem + (better is null ? "" : $"; the {better} family suits this target (tessellation.family or --family)"));
+        }
+    }
+
+    /// <summary>Scaffolds only pairs that make a good start: the family must suit the target as the
+    /// scaffold describes it (<see cref="Tessel.Core.Tessellation.FamilyAdvice"/>) and make a pattern on it.</summary>
+    private static void RefuseUnsuited(string text, string kind, string family)
+    {
+        string dir = Path.Combine(Path.GetTempPath(), "tessel-scaffold-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            Directory.CreateDirectory(dir);
+            if (ScaffoldInputs.For(kind) is var (name, bytes)) File.WriteAllBytes(Path.Combine(dir, name), bytes);
+            var job = JobLoader.Parse(text, $"{kind}-{family}.json", dir);
+            var target = TargetFactory.Build(job.Target, dir, HeightMapImage.Decode);
+            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(family, Tessel.Core.Tessellation.CurvatureFigures.Sample(target));
+            if (!advice.Suits)
+                throw new JobError("--family", $"{family} does not suit the {kind} target this scaffold starts from: {advice.Message} Use --family {advice.Better ?? "free-triangulated"} instead");
+            CheckFamilyServes(job, target);
+        }
+        finally { try { Directory.Delete(dir, true); } catch (IOException) { } }
     }
 
     private static string SizeSource(string name) =>

@@ -36,35 +36,35 @@ public static class JobScaffold
                 """,
             "cylinder" => """
                     // Barrel vault: radius of the circle and height of the crown; the axis runs along x.
-                    "radius": 8,
+                    "radius": 12,
                     "rise": 3,
                 """,
             "spherical-cap" => """
                     // Dome: sphere radius and apex height. The footprint must fit inside the base circle.
-                    "radius": 15,
+                    "radius": 30,
                     "rise": 2.5,
                 """,
             "hyperbolic-paraboloid" => """
                     // Saddle z = rise + x*y/c: a smaller c twists more.
-                    "c": 12,
+                    "c": 30,
                     "rise": 3,
                 """,
             "elliptic-paraboloid" => """
                     // Apex radii of curvature along x and y; negative bends upward (a bowl).
-                    "radiusX": 12,
-                    "radiusY": 20,
+                    "radiusX": 30,
+                    "radiusY": 40,
                     "rise": 2,
                 """,
             "sinusoidal-wave" => """
                     // Corrugation along x: amplitude, wavelength and phase (degrees).
-                    "amplitude": 0.6,
-                    "wavelength": 6,
+                    "amplitude": 0.4,
+                    "wavelength": 16,
                     "phaseDeg": 0,
                 """,
             "formula" => """
                     // z as a function of x and y in the units above: + - * / ^, sin cos tan asin acos atan
                     // exp log sqrt abs, pi and e. -x^2 means -(x^2); write 2*x, not 2x.
-                    "formula": "2 + 0.03*(x^2 - y^2)",
+                    "formula": "2 + 0.01*(x^2 - y^2)",
                 """,
             "height-map" => """
                     // Grayscale PNG (relative to this file): black = minHeight, white = maxHeight.
@@ -104,8 +104,8 @@ public static class JobScaffold
                 // {{string.Join(", ", Catalog.Families.Select(f => f.Name))}}
                 "family": "{{family}}",
                 // Few cells build in seconds; raise them once the job builds.
-                "cellsX": 6,
-                "cellsY": 5,
+                "cellsX": 8,
+                "cellsY": 6,
                 // Acute sector angle of the starting cell, degrees.
                 "sectorAngleDeg": 60,
                 "orientationDeg": 0,

@@ -52,8 +52,10 @@ public static class ScaleChooser
             if (areaM2 * k * k > maxSheets * usable) sheets = int.MaxValue;
             else
             {
+                // A scale whose layout fails for any reason (a facet larger than the sheet, a polygon
+                // operation that gives up on a crowded split) is one that cannot be used: try the next.
                 try { sheets = lay(flat, settings); }
-                catch (Exception e) when (e is ArgumentException or InvalidOperationException) { sheets = int.MaxValue; }
+                catch (Exception e) when (e is not (OutOfMemoryException or OperationCanceledException)) { sheets = int.MaxValue; }
             }
             if (sheets > maxSheets)
             {
