@@ -115,7 +115,8 @@ public static class JobScaffold
                 // Allowed developability residual per vertex in degrees; 0 = exact.
                 "epsilonDeg": 0,
                 "starts": 2,
-                "maxIterations": 300,
+                // Room for the slow final phase of small irregular nets; most fits stop far sooner.
+                "maxIterations": 1000,
                 "anchors": "none",
                 "bounds": { "minSectorAngleDeg": 5, "maxSectorAngleDeg": 175, "minEdgeLengthMm": 3 },
               },

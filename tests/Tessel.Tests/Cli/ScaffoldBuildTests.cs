@@ -1,0 +1,68 @@
+using Tessel.Cli;
+using Tessel.Core.Jobs;
+
+namespace Tessel.Tests.Cli;
+
+/// <summary>Every scaffold either builds as written (exit 0) or is refused, naming a family that suits
+/// its target; height-map and mesh scaffolds come with an example input that the build reads.</summary>
+public class ScaffoldBuildTests
+{
+    private static (int Code, string Out, string Err) Run(params string[] args)
+    {
+        var o = new StringWriter();
+        var e = new StringWriter();
+        int code = Program.Run(args, o, e);
+        return (code, o.ToString(), e.ToString());
+    }
+
+    public static TheoryData<string, string> Pairs()
+    {
+        var data = new TheoryData<string, string>();
+        foreach (var k in Catalog.TargetKinds) foreach (var f in Catalog.Families) data.Add(k.Name, f.Name);
+        return data;
+    }
+
+    [Theory]
+    [MemberData(nameof(Pairs))]
+    public void EveryScaffoldBuildsAsWrittenOrIsRefusedNamingASuitedFamily(string kind, string family)
+    {
+        string dir = TestPaths.NewTempFolder();
+        string job = Path.Combine(dir, $"{kind}-{family}.json");
+        var (code, stdout, stderr) = Run("scaffold", "--target", kind, "--family", family, "--out", job);
+        if (code != ExitCodes.Ok)
+        {
+            Assert.Equal(ExitCodes.BadInput, code);
+            Assert.False(File.Exists(job));
+            var named = Catalog.Families.Select(f => f.Name).Where(f => f != family && stderr.Contains(f)).ToList();
+            Assert.True(named.Count > 0, $"the refusal names no other family: {stderr}");
+            // The family it names is one scaffold accepts for this target.
+            string other = named[0];
+            var (again, _, err2) = Run("scaffold", "--target", kind, "--family", other, "--out", Path.Combine(dir, "other.json"));
+            Assert.True(again == ExitCodes.Ok, $"{kind}/{family} suggested {other}, which is refused too: {err2}");
+            return;
+        }
+        if (kind is "height-map" or "mesh")
+        {
+            string input = kind == "height-map" ? "site-heights.png" : "canopy.obj";
+            Assert.True(File.Exists(Path.Combine(dir, input)), $"{input} was not written beside the job");
+            Assert.Contains(input, stdout);
+        }
+        var (v, _, verr) = Run("validate", job);
+        Assert.True(v == ExitCodes.Ok, verr);
+        var (b, _, berr) = Run("build", job, "--quiet", "--out", Path.Combine(dir, "out"));
+        Assert.True(b == ExitCodes.Ok, $"{kind}/{family} scaffold did not build: {berr}");
+    }
+
+    [Fact]
+    public void ValidateRefusesAFamilyThatCannotMakeAPatternNamingOneThatCan()
+    {
+        // A Yoshimura pattern needs a vault; on a plane the generator refuses it.
+        string dir = TestPaths.NewTempFolder();
+        string job = Path.Combine(dir, "flat-yoshimura.json");
+        File.WriteAllText(job, JobScaffold.Text("plane", "yoshimura"));
+        var (code, _, err) = Run("validate", job);
+        Assert.Equal(ExitCodes.BadInput, code);
+        Assert.Contains("needs a vault", err);
+        Assert.Contains("the miura family suits this target", err);
+    }
+}
