@@ -64,7 +64,8 @@ public static class JobScaffold
             "formula" => """
                     // z as a function of x and y in the units above: + - * / ^, sin cos tan asin acos atan
                     // exp log sqrt abs, pi and e. -x^2 means -(x^2); write 2*x, not 2x.
-                    "formula": "2 + 0.01*(x^2 - y^2)",
+                    // This one is a gentle vault curved across y; try e.g. 2 + 0.01*(x^2 - y^2) for a saddle.
+                    "formula": "2.5 - 0.02*y^2",
                 """,
             "height-map" => """
                     // Grayscale PNG (relative to this file): black = minHeight, white = maxHeight.
