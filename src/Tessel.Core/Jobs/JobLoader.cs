@@ -67,7 +67,7 @@ public static partial class JobLoader
     private static Job Parse(string json, string sourceName, string baseDirectory, ICollection<string>? known)
     {
         if (string.IsNullOrWhiteSpace(json.Trim('\uFEFF')))
-            throw new JobError($"{sourceName}:1:1", "is empty; a job file is a JSON object with at least a target, and 'tessel scaffold --target plane --family miura' writes one to start from");
+            throw new JobError($"{sourceName}:1:1", "malformed JSON: the file is empty; a job file is a JSON object with at least a target, and 'tessel scaffold --target plane --family miura' writes one to start from");
         JsonDocument doc;
         try { doc = JsonDocument.Parse(json, Options); }
         catch (JsonException e)

@@ -63,7 +63,7 @@ public class WordingTests
         File.WriteAllText(job, content);
         var (code, _, err) = Run("validate", job);
         Assert.Equal(ExitCodes.BadInput, code);
-        Assert.Equal("tessel: blank.json:1:1: is empty; a job file is a JSON object with at least a target, and 'tessel scaffold --target plane --family miura' writes one to start from", err.TrimEnd());
+        Assert.Equal("tessel: blank.json:1:1: malformed JSON: the file is empty; a job file is a JSON object with at least a target, and 'tessel scaffold --target plane --family miura' writes one to start from", err.TrimEnd());
     }
 
     [Fact]

@@ -76,7 +76,7 @@ public class GeneratedCorpusTests(ITestOutputHelper log)
         File.WriteAllBytes(file, []);
         var r = CliHarness.Run("validate", file);
         Assert.Equal(ExitCodes.BadInput, r.Code);
-        Assert.StartsWith("tessel: empty.json:1:1: is empty; ", r.Err);
+        Assert.StartsWith("tessel: empty.json:1:1: malformed JSON: the file is empty; ", r.Err);
     }
 
     [Fact]
