@@ -48,7 +48,18 @@ internal static class Commands
         NotEmpty(job);
         NotEmpty(outDir, "folder to write into");
         var quiet = new Option<bool>("--quiet") { Description = "Print no progress lines, only the result and errors." };
-        var seed = new Option<int?>("--seed") { Description = "Seed for random choices, overriding the job's seed and fitting.seed.", HelpName = "N" };
+        var seed = new Option<int?>("--seed")
+        {
+            Description = "Seed for random choices, overriding the job's seed and fitting.seed.",
+            HelpName = "N",
+            CustomParser = r =>
+            {
+                string text = r.Tokens.Count > 0 ? r.Tokens[0].Value : "";
+                if (int.TryParse(text, System.Globalization.NumberStyles.None, System.Globalization.CultureInfo.InvariantCulture, out int n)) return n;
+                r.AddError($"--seed must be a whole number >= 0, e.g. --seed 7 (got \"{text}\")");
+                return null;
+            },
+        };
         var accept = new Option<bool>("--accept-unconverged") { Description = "Write outputs even when the fit does not converge." };
         var cmd = new Command("build", "Build a job: target, tessellation, fit, checks, sheets; write every output file.")
         {
@@ -68,11 +79,26 @@ internal static class Commands
             if (r.GetValue(accept)) loaded = loaded with { Fitting = loaded.Fitting with { AcceptUnconverged = true } };
             string folder = r.GetValue(outDir) ?? Path.Combine(Directory.GetCurrentDirectory(), "output", loaded.Name);
             OutputFolder.CheckTarget(folder);
-            var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr);
-            var output = BuildRunner.Collect(loaded, progress);
+            // A status line rewritten in place only where a person watches a terminal; logs get plain lines.
+            bool live = ReferenceEquals(stderr, Console.Error) && !Console.IsErrorRedirected
+                && Environment.GetEnvironmentVariable("TERM") is not "dumb";
+            var progress = r.GetValue(quiet) ? ProgressReporter.Silent : new ProgressReporter(stderr, live);
+            BuildOutput output;
             BuildResult result;
-            using (interruption?.Writing())
-                result = BuildRunner.Write(output, loaded, folder, progress, interruption?.Token ?? default);
+            var ticker = new Timer(_ => progress.Tick(), null, 1000, 1000);
+            try
+            {
+                output = BuildRunner.Collect(loaded, progress);
+                using (interruption?.Writing())
+                    result = BuildRunner.Write(output, loaded, folder, progress, interruption?.Token ?? default);
+            }
+            finally
+            {
+                // Wait for a tick in flight, so that no status line follows the result.
+                using var stopped = new ManualResetEvent(false);
+                if (ticker.Dispose(stopped)) stopped.WaitOne();
+                progress.Finish();
+            }
             if (interruption?.Token.IsCancellationRequested == true)
             {
                 stderr.WriteLine($"tessel: interrupted after the new build was already in place in {result.Folder}");
@@ -118,6 +144,7 @@ internal static class Commands
         {
             string kind = r.GetRequiredValue(target), fam = r.GetRequiredValue(family);
             string text = JobScaffold.Text(kind, fam);
+            RefuseUnsuited(text, kind, fam);
             string path = Path.GetFullPath(r.GetValue(outFile) ?? $"{kind}-{fam}.json");
             if (File.Exists(path) || Directory.Exists(path))
                 throw new JobError(path, "already exists; scaffold never overwrites, so choose another --out or move the file");
@@ -132,6 +159,22 @@ internal static class Commands
                 throw new OutputNotWritableError(dir ?? path, e.Message, e);
             }
             stdout.WriteLine($"wrote {path}");
+            // Height-map and mesh jobs name an input file: write an invented example beside the job
+            // (never over an existing file) so that the scaffold builds as written.
+            if (ScaffoldInputs.For(kind) is var (name, bytes))
+            {
+                string input = Path.Combine(dir ?? ".", name);
+                if (File.Exists(input)) stdout.WriteLine($"kept {input} (the job names it)");
+                else
+                {
+                    try { AtomicFile.Write(input, bytes); }
+                    catch (Exception e) when (e is IOException or UnauthorizedAccessException)
+                    {
+                        throw new OutputNotWritableError(dir ?? input, e.Message, e);
+                    }
+                    stdout.WriteLine($"wrote {input} (an invented example input; replace it with your own)");
+                }
+            }
             return ExitCodes.Ok;
         });
         return cmd;
@@ -140,7 +183,14 @@ internal static class Commands
     private static Command CatalogVerb(TextWriter stdout)
     {
         var what = new Argument<string>("list") { Description = "targets, families, materials or sheets." };
-        what.AcceptOnlyFromAmong("targets", "families", "materials", "sheets");
+        string[] lists = ["targets", "families", "materials", "sheets"];
+        what.Validators.Add(r =>
+        {
+            string given = r.Tokens.Count > 0 ? r.Tokens[0].Value : "";
+            if (lists.Contains(given, StringComparer.Ordinal)) return;
+            string? near = EditDistance.Nearest(given, lists);
+            r.AddError($"catalog has no list '{given}'; {(near is null ? "" : $"did you mean '{near}'? ")}choose targets, families, materials or sheets");
+        });
         var cmd = new Command("catalog", "List what a job can name: target kinds, tessellation families, materials or sheet sizes.") { what };
         cmd.SetAction(r =>
         {
@@ -174,6 +224,7 @@ internal static class Commands
         {
             var loaded = JobLoader.Load(r.GetValue(job)!);
             var target = TargetFactory.Build(loaded.Target, loaded.BaseDirectory, HeightMapImage.Decode);
+            CheckFamilyServes(loaded, target);
             var f = target.Footprint;
             stdout.WriteLine($"OK {loaded.Name}: {target.Description}; footprint {f.Width:0.###} x {f.Depth:0.###} m; family {loaded.Tessellation.Family}");
             var sheet = loaded.Fabrication.Sheet;
@@ -181,6 +232,43 @@ internal static class Commands
             return ExitCodes.Ok;
         });
         return cmd;
+    }
+
+    /// <summary>Generates the job's pattern on its target (no fit): a family that cannot make a pattern
+    /// there is refused as bad input, naming a family that suits the target.</summary>
+    internal static void CheckFamilyServes(Job job, ITargetSurface target)
+    {
+        try { TessellationStage.Run(job, target, ProgressReporter.Silent); }
+        catch (JobError e)
+        {
+            var curvature = Tessel.Core.Tessellation.CurvatureFigures.Sample(target);
+            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(job.Tessellation.Family, curvature);
+            // The family's own advice may call the pairing fine in general; then name the first other
+            // family that suits this target's curvature.
+            string? better = advice.Better ?? Catalog.Families.Select(f => f.Name)
+                .Where(f => f != job.Tessellation.Family)
+                .FirstOrDefault(f => Tessel.Core.Tessellation.FamilyAdvice.For(f, curvature).Suits);
+            throw new JobError(e.Where, e.Problem + (better is null ? "" : $"; the {better} family suits this target (tessellation.family or --family)"));
+        }
+    }
+
+    /// <summary>Scaffolds only pairs that make a good start: the family must suit the target as the
+    /// scaffold describes it (<see cref="Tessel.Core.Tessellation.FamilyAdvice"/>) and make a pattern on it.</summary>
+    private static void RefuseUnsuited(string text, string kind, string family)
+    {
+        string dir = Path.Combine(Path.GetTempPath(), "tessel-scaffold-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            Directory.CreateDirectory(dir);
+            if (ScaffoldInputs.For(kind) is var (name, bytes)) File.WriteAllBytes(Path.Combine(dir, name), bytes);
+            var job = JobLoader.Parse(text, $"{kind}-{family}.json", dir);
+            var target = TargetFactory.Build(job.Target, dir, HeightMapImage.Decode);
+            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(family, Tessel.Core.Tessellation.CurvatureFigures.Sample(target));
+            if (!advice.Suits)
+                throw new JobError("--family", $"{family} does not suit the {kind} target this scaffold starts from: {advice.Message} Use --family {advice.Better ?? "free-triangulated"} instead");
+            CheckFamilyServes(job, target);
+        }
+        finally { try { Directory.Delete(dir, true); } catch (IOException) { } }
     }
 
     private static string SizeSource(string name) =>

@@ -21,6 +21,11 @@ public static class Program
     private static int Run(string[] args, TextWriter stdout, TextWriter stderr, Interruption? interruption)
     {
         var root = Commands.Root(stdout, stderr, interruption);
+        if (UnknownVerb(root, args) is { } unknown)
+        {
+            stderr.WriteLine($"tessel: {unknown} (see 'tessel --help')");
+            return ExitCodes.BadInput;
+        }
         var parsed = root.Parse(args);
         if (parsed.Errors.Count > 0)
         {
@@ -33,6 +38,17 @@ public static class Program
             Error = stderr,
             EnableDefaultExceptionHandler = false,
         }));
+    }
+
+    /// <summary>A message naming the first argument when it is neither a verb nor an option, or null.</summary>
+    internal static string? UnknownVerb(RootCommand root, string[] args)
+    {
+        if (args.Length == 0 || args[0].StartsWith('-')) return null;
+        var verbs = root.Subcommands.Select(c => c.Name).ToList();
+        if (verbs.Contains(args[0], StringComparer.Ordinal)) return null;
+        string? near = EditDistance.Nearest(args[0], verbs);
+        string hint = near is null ? "" : $"did you mean '{near}'? ";
+        return $"unknown command '{args[0]}'; {hint}the commands are {string.Join(", ", verbs)}";
     }
 
     /// <summary>Runs <paramref name="action"/>, turning known failures into one-line messages and exit codes.</summary>

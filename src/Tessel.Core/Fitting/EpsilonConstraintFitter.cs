@@ -451,5 +451,6 @@ internal sealed class FitRun
         double total = Objective(out double fairness);
         _history.Add(new FitIteration(_history.Count, phase, total, fairness, Shape().Rms, res.MaxPlanarity, res.MaxKawasaki,
             res.MaxDevelopabilityExcess, res.MaxBoundViolation, accepted, _clock.Elapsed.TotalSeconds));
+        _s.OnStep?.Invoke(_history[^1]);
     }
 }

@@ -39,6 +39,10 @@ public sealed record FitSettings
     /// <summary>Initial augmented-Lagrangian penalty (dimensionless: constraints are in radians).</summary>
     public double InitialPenalty { get; init; } = 1e6;
 
+    /// <summary>Called after every recorded step (from the fitting thread; starts run in parallel), for
+    /// progress display only: it must not change the fit.</summary>
+    public Action<FitIteration>? OnStep { get; init; }
+
     /// <summary>These settings with the pattern's own <see cref="GeneratedPattern.InitialPenalty"/>
     /// when its family sets one.</summary>
     public FitSettings For(GeneratedPattern pattern) =>

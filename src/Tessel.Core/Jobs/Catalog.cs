@@ -30,8 +30,16 @@ public static class Catalog
     /// <summary>Material presets of the sheet stage (fabrication.material); their figures are starting values to test.</summary>
     public static IReadOnlyList<CatalogEntry> Materials { get; } = Sheets.Materials.All
         .Select(m => new CatalogEntry(m.Name, FormattableString.Invariant(
-            $"{m.Description}, t = {m.ThicknessMm} mm; folds: mountain {m.MountainMethod}, valley {m.ValleyMethod}; perforation {m.PerforationCutMm}/{m.PerforationBridgeMm} mm")))
+            $"{m.Description}, t = {m.ThicknessMm} mm; folds: mountain {JobValue(m.MountainMethod)}, valley {JobValue(m.ValleyMethod)}; perforation {m.PerforationCutMm}/{m.PerforationBridgeMm} mm")))
         .ToArray();
+
+    /// <summary>The job-file value (fabrication.foldMethod) that selects <paramref name="method"/>.</summary>
+    public static string JobValue(Sheets.FoldMethod method) => method switch
+    {
+        Sheets.FoldMethod.Score => "score",
+        Sheets.FoldMethod.ScoreFromBack => "two-sided",
+        _ => "perforate",
+    };
 
     /// <summary>Ways to make a fold line (fabrication.foldMethod.mountain / .valley).</summary>
     public static readonly IReadOnlyList<CatalogEntry> FoldMethods =
@@ -40,6 +48,7 @@ public static class Catalog
         new("score", "half-depth score from the front"),
         new("perforate", "through-cut dashes with uncut bridges; folds either way"),
         new("two-sided", "half-depth score from the back, in a mirrored second job, so the scored side ends up outside"),
+        new("hand-score", "no laser: drawn on the front sheet, printed (PDF, PNG) at 0.35 mm so it reads on paper; score by hand along a steel rule"),
     ];
 
     /// <summary>Which vertices fitting pins to the target (fitting.anchors).</summary>

@@ -23,7 +23,18 @@ public sealed record FabricationSpec(
     double KerfMm,
     TabSpec Tab,
     double HairlineMm,
-    IReadOnlyDictionary<string, LayerStyle> Layers);
+    IReadOnlyDictionary<string, LayerStyle> Layers)
+{
+    /// <summary>The job asked for <c>"scale": "auto"</c>: the sheet stage chooses <see cref="Scale"/> from the
+    /// common architectural scales (<see cref="Sheets.ScaleChoice"/>); until then <see cref="Scale"/> is NaN.</summary>
+    public bool AutoScale { get; init; }
+
+    /// <summary>With <see cref="AutoScale"/>, once chosen: which scale and why, for the summary.</summary>
+    public string? ScaleReason { get; init; }
+
+    /// <summary>Most sheets an automatic scale may use (fabrication.maxSheets).</summary>
+    public int MaxSheets { get; init; } = 1;
+}
 
 /// <summary>score, perforate or two-sided, for each fold direction.</summary>
 public sealed record FoldMethodSpec(string Mountain, string Valley);

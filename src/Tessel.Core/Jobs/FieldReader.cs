@@ -52,6 +52,20 @@ internal sealed class FieldReader
         return ToNumber(v.Value, PathOf(name));
     }
 
+    /// <summary>A number, or the one word <paramref name="word"/> in quotes (then <paramref name="isWord"/> is true and null returns).</summary>
+    public double? NumberOrWord(string name, string word, out bool isWord)
+    {
+        isWord = false;
+        var v = Get(name);
+        if (v is null) return null;
+        if (v.Value.ValueKind == JsonValueKind.String)
+        {
+            if (v.Value.GetString() == word) { isWord = true; return null; }
+            throw new JobError(PathOf(name), $"must be a number or \"{word}\" (got {Describe(v.Value)})");
+        }
+        return ToNumber(v.Value, PathOf(name));
+    }
+
     public int? Integer(string name)
     {
         var v = Get(name);

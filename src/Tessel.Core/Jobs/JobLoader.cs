@@ -69,6 +69,8 @@ public static partial class JobLoader
 
     private static Job Parse(string json, string sourceName, string baseDirectory, ICollection<string>? known)
     {
+        if (string.IsNullOrWhiteSpace(json.Trim('\uFEFF')))
+            throw new JobError($"{sourceName}:1:1", "malformed JSON: the file is empty; a job file is a JSON object with at least a target, and 'tessel scaffold --target plane --family miura' writes one to start from");
         JsonDocument doc;
         try { doc = JsonDocument.Parse(json, Options); }
         catch (JsonException e)
@@ -77,6 +79,9 @@ public static partial class JobLoader
             string why = e.Message;
             int cut = why.IndexOf(" LineNumber:", StringComparison.Ordinal);
             if (cut > 0) why = why[..cut].TrimEnd('.', ' ');
+            // The reader's own parameter names mean nothing to someone editing a job file.
+            int inner = why.IndexOf(", when isFinalBlock", StringComparison.Ordinal);
+            if (inner > 0) why = why[..inner];
             throw new JobError($"{sourceName}:{line}:{col}", $"malformed JSON: {why}");
         }
         using (doc)
@@ -358,7 +363,8 @@ public static partial class JobLoader
 
     private static FabricationSpec ReadFabrication(FieldReader r)
     {
-        double scale = r.Number("scale") ?? 100;
+        double scale = r.NumberOrWord("scale", "auto", out bool autoScale) ?? (autoScale ? double.NaN : 100);
+        int maxSheets = r.Integer("maxSheets") ?? 1;
         string material = r.String("material") ?? "card";
         var fm = r.Object("foldMethod");
         string mountain = fm.String("mountain") ?? "material";
@@ -398,7 +404,8 @@ public static partial class JobLoader
         lr.RejectUnknown();
         r.RejectUnknown();
 
-        Positive(r.PathOf("scale"), scale, "number n of the scale 1:n", required: true);
+        if (!autoScale) Positive(r.PathOf("scale"), scale, "number n of the scale 1:n, or \"auto\"", required: true);
+        if (maxSheets < 1 || maxSheets > 1000) throw new JobError(r.PathOf("maxSheets"), $"must be a whole number from 1 to 1000 (got {maxSheets})");
         if (string.IsNullOrWhiteSpace(material)) throw new JobError(r.PathOf("material"), "must name a material; see 'tessel catalog materials'");
         CheckChoice(r.PathOf("material"), material, Catalog.Materials.Select(m => m.Name));
         CheckChoice(fm.PathOf("mountain"), mountain, Catalog.FoldMethods.Select(f => f.Name));
@@ -438,7 +445,7 @@ public static partial class JobLoader
         if (hairline >= usable)
             throw new JobError(r.PathOf("hairlineMm"), $"a {Format(hairline)} mm line is as wide as the usable sheet ({Format(usable)} mm); cut and fold lines are hairlines, e.g. 0.05");
         return new FabricationSpec(scale, material, new FoldMethodSpec(mountain, valley), sheet, orientation,
-            margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers);
+            margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers) { AutoScale = autoScale, MaxSheets = maxSheets };
     }
 
     /// <summary>Cutter operations a layer can be mapped to (names of <see cref="Sheets.LineOperation"/>).</summary>

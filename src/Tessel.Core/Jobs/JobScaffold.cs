@@ -36,47 +36,50 @@ public static class JobScaffold
                 """,
             "cylinder" => """
                     // Barrel vault: radius of the circle and height of the crown; the axis runs along x.
-                    "radius": 8,
+                    "radius": 12,
                     "rise": 3,
                 """,
             "spherical-cap" => """
                     // Dome: sphere radius and apex height. The footprint must fit inside the base circle.
-                    "radius": 15,
+                    "radius": 30,
                     "rise": 2.5,
                 """,
             "hyperbolic-paraboloid" => """
                     // Saddle z = rise + x*y/c: a smaller c twists more.
-                    "c": 12,
+                    "c": 30,
                     "rise": 3,
                 """,
             "elliptic-paraboloid" => """
                     // Apex radii of curvature along x and y; negative bends upward (a bowl).
-                    "radiusX": 12,
-                    "radiusY": 20,
+                    "radiusX": 30,
+                    "radiusY": 40,
                     "rise": 2,
                 """,
             "sinusoidal-wave" => """
                     // Corrugation along x: amplitude, wavelength and phase (degrees).
-                    "amplitude": 0.6,
-                    "wavelength": 6,
+                    "amplitude": 0.4,
+                    "wavelength": 16,
                     "phaseDeg": 0,
                 """,
             "formula" => """
                     // z as a function of x and y in the units above: + - * / ^, sin cos tan asin acos atan
                     // exp log sqrt abs, pi and e. -x^2 means -(x^2); write 2*x, not 2x.
-                    "formula": "2 + 0.03*(x^2 - y^2)",
+                    // This one is a gentle vault curved across y; try e.g. 2 + 0.01*(x^2 - y^2) for a saddle.
+                    "formula": "2.5 - 0.02*y^2",
                 """,
             "height-map" => """
                     // Grayscale PNG (relative to this file): black = minHeight, white = maxHeight.
                     // Rows run from the far (+y) edge to the near edge; the image spans imageWidth x imageDepth.
+                    // 'tessel scaffold' wrote an invented example beside this file: a shallow dome. Replace it.
                     "image": "site-heights.png",
                     "imageWidth": 20,
                     "imageDepth": 15,
-                    "minHeight": 0,
+                    "minHeight": 1.8,
                     "maxHeight": 3,
                 """,
             _ => """
                     // OBJ or STL file (relative to this file) seen from above, in the units above.
+                    // 'tessel scaffold' wrote an invented example beside this file: a shallow dome. Replace it.
                     "mesh": "canopy.obj",
                 """,
         });
@@ -101,8 +104,9 @@ public static class JobScaffold
               "tessellation": {
                 // {{string.Join(", ", Catalog.Families.Select(f => f.Name))}}
                 "family": "{{family}}",
-                "cellsX": 12,
-                "cellsY": 10,
+                // Few cells build in seconds; raise them once the job builds.
+                "cellsX": 8,
+                "cellsY": 6,
                 // Acute sector angle of the starting cell, degrees.
                 "sectorAngleDeg": 60,
                 "orientationDeg": 0,
@@ -111,15 +115,18 @@ public static class JobScaffold
               "fitting": {
                 // Allowed developability residual per vertex in degrees; 0 = exact.
                 "epsilonDeg": 0,
-                "starts": 4,
-                "maxIterations": 300,
+                "starts": 2,
+                // Room for the slow final phase of small irregular nets; most fits stop far sooner.
+                "maxIterations": 1000,
                 "anchors": "none",
                 "bounds": { "minSectorAngleDeg": 5, "maxSectorAngleDeg": 175, "minEdgeLengthMm": 3 },
               },
 
               "fabrication": {
-                // Model scale 1:n.
-                "scale": 100,
+                // Model scale 1:n, or "auto": the largest common scale whose facets are at least
+                // 10 x the material's thickness with the parts on maxSheets sheets.
+                "scale": "auto",
+                "maxSheets": 1,
                 // See 'tessel catalog materials'.
                 "material": "card",
                 "foldMethod": { "mountain": "material", "valley": "material" },

@@ -55,11 +55,12 @@ public static class ChecksStage
     }
 
     /// <param name="envelope">The family's envelope builder (<see cref="GeneratedPattern.Envelope"/>), or null.</param>
+    /// <param name="unfolded">The fitted mesh already developed (as for an automatic scale), or null.</param>
     public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress,
-        Func<CreaseMesh, CreaseMesh>? envelope = null)
+        Func<CreaseMesh, CreaseMesh>? envelope = null, FlatPattern? unfolded = null)
     {
         progress.Stage("unfold", "developing the fitted pattern to the plane");
-        var flat = Guard("unfolding", () => MeshUnfolder.Unfold(fitted, new AutoSolver()));
+        var flat = unfolded ?? Guard("unfolding", () => MeshUnfolder.Unfold(fitted, new AutoSolver()));
         double maxEdgeStrain = flat.EdgeStrain.Length == 0 ? 0 : flat.EdgeStrain.Max(Math.Abs);
         progress.Step($"largest edge length error {maxEdgeStrain * 100:0.####} %");
 

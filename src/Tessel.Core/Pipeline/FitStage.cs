@@ -27,7 +27,9 @@ public static class FitStage
         MaxSectorAngleDeg = job.Fitting.Bounds.MaxSectorAngleDeg,
         MinFoldAngleDeg = Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0),
         MaxFoldAngleDeg = job.Fitting.Bounds.MaxFoldAngleDeg,
-        MinEdgeLengthM = job.Fitting.Bounds.MinEdgeLengthMm / 1000 * job.Fabrication.Scale,
+        // With an automatic scale the scale is chosen after the fit, from facets at least ten times the
+        // material's thickness, so the shortest crease is not a bound of the fit.
+        MinEdgeLengthM = job.Fabrication.AutoScale ? 0 : job.Fitting.Bounds.MinEdgeLengthMm / 1000 * job.Fabrication.Scale,
     };
 
     /// <param name="drapeOn">Drapes the pattern on another surface, for the fit's continuation when the
@@ -43,7 +45,7 @@ public static class FitStage
         FitResult fit;
         try
         {
-            fit = ContinuationFitter.Fit(pattern, target, settings, drapeOn, EpsilonConstraintFitter.DefaultSolver, progress.Step);
+            fit = ContinuationFitter.Fit(pattern, target, progress.Observe(settings), drapeOn, EpsilonConstraintFitter.DefaultSolver, progress.Step);
         }
         catch (Exception e) when (Breakdown(e) is { } cause)
         {
@@ -66,7 +68,7 @@ public static class FitStage
             progress.Step($"sweeping epsilon over {order.Length} values");
             try
             {
-                front.AddRange(ParetoSweep.Run(pattern, target, settings with { Starts = 1 }, order, EpsilonConstraintFitter.DefaultSolver()).Front);
+                front.AddRange(ParetoSweep.Run(pattern, target, progress.Observe(settings with { Starts = 1 }), order, EpsilonConstraintFitter.DefaultSolver()).Front);
             }
             catch (Exception e) when (Breakdown(e) is { } cause)
             {
@@ -88,7 +90,7 @@ public static class FitStage
 
     /// <summary>One phrase: buildable and finished, buildable with room to improve, or not buildable.</summary>
     public static string Verdict(FitResult fit) =>
-        !fit.Buildable ? $"NOT buildable ({fit.StopReason})"
+        !fit.Buildable ? $"NOT buildable ({Wording.StopDetail(fit.StopReason)})"
         : fit.Converged ? "buildable and finished"
         : double.IsNaN(fit.LastRelativeDecrease) ? $"buildable; the shape could still improve (the step limit ended the fit before its shape phase finished a round; {fit.History.Count} steps used)"
         : $"buildable; the shape could still improve (its last round still lowered the objective by {fit.LastRelativeDecrease * 100:0.##} %; {fit.History.Count} steps used)";

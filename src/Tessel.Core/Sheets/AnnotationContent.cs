@@ -6,9 +6,15 @@ namespace Tessel.Core.Sheets;
 /// <param name="ScaleText">The model scale, e.g. "1:100".</param>
 /// <param name="TextHeightMm">Capital height of the annotation text; cautions use 0.8 of it.</param>
 /// <param name="IncludeCautions">Print the safety cautions (leave on unless a cover sheet carries them).</param>
+/// <param name="Heading">The title's second line; null for "SHEET n OF N - side" (part sheets).</param>
+/// <param name="KeyNotes">Lines printed under the legend's line samples, e.g. where the back job is.</param>
+/// <param name="CautionLine">Print the one-line caution (<see cref="SheetAnnotations.CautionLine"/>).</param>
 public sealed record AnnotationContent(
     string JobName,
     int SheetCount,
     string ScaleText,
     double TextHeightMm = 2.5,
-    bool IncludeCautions = true);
+    bool IncludeCautions = true,
+    string? Heading = null,
+    IReadOnlyList<string>? KeyNotes = null,
+    bool CautionLine = false);

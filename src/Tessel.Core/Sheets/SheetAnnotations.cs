@@ -26,13 +26,19 @@ public static class SheetAnnotations
     /// <summary>The safety cautions printed on every sheet (or the cover sheet), one paragraph each.</summary>
     public static IReadOnlyList<string> CautionParagraphs { get; } =
     [
-        "CAUTION - laser: never leave the machine running unattended. Keep fume extraction and air assist on and a CO2 extinguisher at hand.",
+        "CAUTION - laser: work only under your workshop's rules, the machine maker's instructions and the training you were given; never leave the machine running unattended. Keep fume extraction and air assist on and a CO2 extinguisher at hand.",
+        "Fumes: polypropylene and adhesives give off fumes when cut or glued; ventilate the room and follow each product's safety data sheet.",
         "Never laser-cut PVC or vinyl (gives off hydrogen chloride and chlorine), PTFE, polycarbonate or ABS, or board of unknown make-up; read the material's safety data sheet.",
         "Hand cutting: sharp blade, steel rule and cutting mat; cut away from your body; used blades into a sharps container.",
         "A scale model is for study, not a structural check: loads, connections, fire and code compliance need a licensed engineer under local codes.",
     ];
 
-    private readonly record struct Block(string Name, double Width, double Height, List<SheetLine> Lines);
+    /// <summary>The caution printed on every part sheet and in the terminal summary: short, and deferring
+    /// to the workshop's rules rather than replacing them.</summary>
+    public const string CautionLine =
+        "CAUTION: laser only under your workshop's rules, the machine maker's instructions and your training; never PVC or vinyl; ventilate fumes from polypropylene and adhesives; a model is not a structural check.";
+
+    internal readonly record struct Block(string Name, double Width, double Height, List<SheetLine> Lines);
 
     /// <summary>Appends title, print check, legend (for the classes present on the sheet) and cautions
     /// to <paramref name="sheet"/>, flowing the blocks left to right and then downwards inside
@@ -56,7 +62,7 @@ public static class SheetAnnotations
         }
         LineClass[] inUse = LineStyleTable.FabricationOrder
             .Where(c => c != LineClass.Annotation && sheet.Lines.Any(l => l.Class == c)).ToArray();
-        var (lines, omitted, used) = Flow(Blocks(sheet.Number, sheet.Side, content, styles, inUse, strip.Height), strip, content.TextHeightMm);
+        var (lines, omitted, used) = Flow(Blocks(sheet.Number, sheet.Side, content, styles, inUse, strip.Height, strip.Width), strip, content.TextHeightMm);
         return new AnnotationPlacement(sheet with { Lines = [.. sheet.Lines, .. lines] }, omitted, used);
     }
 
@@ -67,7 +73,7 @@ public static class SheetAnnotations
     {
         LineClass[] inUse = classesInUse.Where(c => c != LineClass.Annotation).Distinct().ToArray();
         var region = new SheetRegion(0, 0, stripWidthMm, 1e6);
-        var blocks = Blocks(1, "front", content, styles, inUse, region.Height);
+        var blocks = Blocks(1, "front", content, styles, inUse, region.Height, region.Width);
         var (_, omitted, used) = Flow(blocks, region, content.TextHeightMm);
         if (omitted.Count > 0)
             throw new ArgumentException($"A strip {stripWidthMm} mm wide is too narrow for: {string.Join(", ", omitted)}.");
@@ -83,7 +89,7 @@ public static class SheetAnnotations
         var blank = new Sheet(number, widthMm, heightMm, []);
         var region = new SheetRegion(marginMm, marginMm, widthMm - 2 * marginMm, heightMm - 2 * marginMm);
         LineClass[] inUse = LineStyleTable.FabricationOrder.Where(c => c != LineClass.Annotation && classesInUse.Contains(c)).ToArray();
-        var (lines, omitted, used) = Flow(Blocks(number, "cover", content, styles, inUse, region.Height), region, content.TextHeightMm);
+        var (lines, omitted, used) = Flow(Blocks(number, "cover", content, styles, inUse, region.Height, region.Width), region, content.TextHeightMm);
         return new AnnotationPlacement(blank with { Lines = lines.ToArray() }, omitted, used);
     }
 
@@ -165,8 +171,8 @@ public static class SheetAnnotations
         return $"{s.DisplayName} - {operation} - {s.ColourHex} - {s.LayerName}";
     }
 
-    private static List<Block> Blocks(int sheetNumber, string side, AnnotationContent content, LineStyleTable styles,
-        IReadOnlyList<LineClass> inUse, double availableHeight)
+    internal static List<Block> Blocks(int sheetNumber, string side, AnnotationContent content, LineStyleTable styles,
+        IReadOnlyList<LineClass> inUse, double availableHeight, double availableWidth)
     {
         double h = content.TextHeightMm;
         if (!(h > 0)) throw new ArgumentOutOfRangeException(nameof(content), h, "Annotation text height must be positive.");
@@ -177,7 +183,7 @@ public static class SheetAnnotations
         string[] title =
         [
             $"JOB: {content.JobName}",
-            string.Create(CultureInfo.InvariantCulture, $"SHEET {sheetNumber} OF {content.SheetCount} - {side}"),
+            content.Heading ?? string.Create(CultureInfo.InvariantCulture, $"SHEET {sheetNumber} OF {content.SheetCount} - {side}"),
             $"SCALE {content.ScaleText} - PRINT AT 100 %, NO FIT TO PAGE",
         ];
         blocks.Add(TextBlock("title", title, h));
@@ -198,23 +204,42 @@ public static class SheetAnnotations
         }
 
         // Legend: rows of sample + words, in as many columns as the height needs.
-        if (inUse.Count > 0)
+        // Legend: rows of sample + words, in as many columns as the height needs; key notes (wrapped,
+        // no sample) follow the samples as further rows.
+        var notes = (content.KeyNotes ?? []).SelectMany(n => Wrap(n, Math.Min(availableWidth, 130), h)).ToArray();
+        int rowCount = inUse.Count + notes.Length;
+        if (rowCount > 0)
         {
-            int rowsPerColumn = Math.Max(1, Math.Min(inUse.Count, (int)Math.Floor((availableHeight - h - descent) / pitch) + 1));
+            int rowsPerColumn = Math.Max(1, Math.Min(rowCount, (int)Math.Floor((availableHeight - h - descent) / pitch) + 1));
             var lines = new List<SheetLine>();
             double columnX = 0, width = 0;
-            for (int i = 0; i < inUse.Count; i++)
+            for (int i = 0; i < rowCount; i++)
             {
                 int row = i % rowsPerColumn;
                 if (row == 0 && i > 0) columnX = width + 3 * h;
                 double baseline = h + row * pitch;
-                lines.AddRange(LegendSample(inUse[i], styles, new Vec2(columnX, baseline - h / 2)));
-                string words = LegendText(inUse[i], styles);
-                lines.AddRange(Text(words, new Vec2(columnX + LegendSampleMm + 2, baseline), h));
-                width = Math.Max(width, columnX + LegendSampleMm + 2 + StrokeFont.Measure(words, h));
+                if (i < inUse.Count)
+                {
+                    lines.AddRange(LegendSample(inUse[i], styles, new Vec2(columnX, baseline - h / 2)));
+                    string words = LegendText(inUse[i], styles);
+                    lines.AddRange(Text(words, new Vec2(columnX + LegendSampleMm + 2, baseline), h));
+                    width = Math.Max(width, columnX + LegendSampleMm + 2 + StrokeFont.Measure(words, h));
+                }
+                else
+                {
+                    string note = notes[i - inUse.Count];
+                    lines.AddRange(Text(note, new Vec2(columnX, baseline), h));
+                    width = Math.Max(width, columnX + StrokeFont.Measure(note, h));
+                }
             }
-            int rows = Math.Min(rowsPerColumn, inUse.Count);
+            int rows = Math.Min(rowsPerColumn, rowCount);
             blocks.Add(new Block("legend", width, h + (rows - 1) * pitch + descent, lines));
+        }
+
+        if (content.CautionLine)
+        {
+            double ch = 0.8 * h;
+            blocks.Add(TextBlock("caution", Wrap(CautionLine, availableWidth, ch), ch));
         }
 
         // Cautions: wrapped to a comfortable reading width.
@@ -228,7 +253,7 @@ public static class SheetAnnotations
         return blocks;
     }
 
-    private static Block TextBlock(string name, IReadOnlyList<string> lines, double h)
+    internal static Block TextBlock(string name, IReadOnlyList<string> lines, double h)
     {
         string joined = string.Join("\n", lines);
         double descent = StrokeFont.DescenderUnits / StrokeFont.CapHeightUnits * h;
@@ -236,7 +261,7 @@ public static class SheetAnnotations
             Text(joined, new Vec2(0, h), h).ToList());
     }
 
-    private static (List<SheetLine> Lines, List<string> Omitted, double UsedHeight) Flow(List<Block> blocks, SheetRegion region, double textHeight)
+    internal static (List<SheetLine> Lines, List<string> Omitted, double UsedHeight) Flow(List<Block> blocks, SheetRegion region, double textHeight)
     {
         double gap = 3 * textHeight;
         double x = region.X, y = region.Y, shelf = 0, used = 0;

@@ -2,7 +2,9 @@ using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Sheets;
+using Tessel.Core.Fitting.Sparse;
 using Tessel.Core.Targets;
+using Tessel.Core.Unfolding;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
 using Tessel.Output.Report;
@@ -44,7 +46,8 @@ public static class BuildRunner
         var output = new BuildOutput();
         output.AddFigure("job", "seed", (long)job.Seed);
         output.AddFigure("job", "family", job.Tessellation.Family);
-        output.AddFigure("job", "scale", job.Fabrication.Scale);
+        if (job.Fabrication.AutoScale) output.AddFigure("job", "scale", "auto");
+        else output.AddFigure("job", "scale", job.Fabrication.Scale);
 
         var targetStage = TargetStage.Run(job, HeightMapImage.Decode, progress);
         AddTarget(output, job, targetStage, progress);
@@ -73,6 +76,14 @@ public static class BuildRunner
                 tooBig + "; use fewer cells (tessellation.cellsX and tessellation.cellsY) or a larger tessellation.cellSize");
         var sheetSettings = SheetStage.SettingsFor(job);
         var fit = FitStage.Run(job, tessellation.Pattern, target, progress, tessellation.DrapeOn);
+        FlatPattern? unfolded = null;
+        if (job.Fabrication.AutoScale)
+        {
+            unfolded = MeshUnfolder.Unfold(fit.Fit.Mesh, new AutoSolver());
+            job = SheetStage.ResolveScale(job, unfolded, progress);
+            output.AddFigure("sheets", "chosenScale", job.Fabrication.Scale);
+            output.AddFigure("sheets", "chosenScaleReason", job.Fabrication.ScaleReason!);
+        }
         ModelOutputs.AddFit(output, job, tessellation, fit);
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
@@ -92,7 +103,7 @@ public static class BuildRunner
         }
 
         double strainLimit = sheetSettings.Material.StrainLimit;
-        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress, tessellation.Pattern.Envelope);
+        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress, tessellation.Pattern.Envelope, unfolded);
         ModelOutputs.AddChecks(output, job, checks, strainLimit);
         if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
         if (checks.Strain.FacetsOverLimit.Length > 0)
@@ -135,6 +146,9 @@ public static class BuildRunner
         {
             progress.Stage("report", "previews, report.html and summary.md");
             var model = ReportAssembly.Build(job, target, tessellation, fit, checks, sheets, warnings);
+            // The report links every file of the build: those made so far, its own, and summary.json.
+            var own = ReportFiles.Contents(model).Select(c => c.Name);
+            model = model with { Files = [.. output.Files.Select(f => f.Path), .. own, "summary.json"] };
             foreach (var (name, bytes) in ReportFiles.Contents(model)) output.AddFile(name, bytes);
             output.Terminal = TerminalSummary.Format(model);
         }

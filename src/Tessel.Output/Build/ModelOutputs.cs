@@ -149,23 +149,24 @@ public static class ModelOutputs
             // A sheet too large for a 300 dpi raster is written at a lower resolution (the job loader has
             // refused sheets that no resolution fits).
             var writer = SheetWriterFormats.Create(format, SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi);
+            // Files for a printer get the print weights; files for a cutter keep hairlines.
+            var styles = format is "pdf" or "png" ? sheets.PrintStyles : sheets.Styles;
             if (writer.OneFilePerSheet)
             {
-                if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], sheets.Styles));
+                if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], styles));
                 foreach (var sheet in sheets.Sheets)
-                    output.AddFile($"sheets/{SheetFileName(sheet)}{writer.FileExtension}", Bytes(writer, [sheet], sheets.Styles));
+                    output.AddFile($"sheets/{SheetFileName(sheet)}{writer.FileExtension}", Bytes(writer, [sheet], styles));
             }
             else
             {
                 var pdf = new PdfSheetWriter { Title = $"Tessel sheets: {job.Name}" };
-                output.AddFile("sheets/sheets.pdf", Bytes(pdf, [sheets.Cover, .. sheets.Sheets], sheets.Styles));
+                output.AddFile("sheets/sheets.pdf", Bytes(pdf, [sheets.Cover, .. sheets.Sheets], styles));
             }
         }
     }
 
     /// <summary>"sheet-01" for a front job, "sheet-01-back" for the mirrored back job.</summary>
-    public static string SheetFileName(Sheet sheet) =>
-        $"sheet-{sheet.Number.ToString("00", Inv)}{(sheet.Side == "front" ? "" : "-" + sheet.Side)}";
+    public static string SheetFileName(Sheet sheet) => SheetFiles.BaseName(sheet);
 
     private static byte[] Bytes(ISheetWriter writer, IReadOnlyList<Sheet> sheets, LineStyleTable styles)
     {
@@ -232,7 +233,8 @@ public static class ModelOutputs
         }
         // A legend strip under the pattern (title, print check, line legend), at least wide enough for it.
         var styles = SheetStage.StylesFor(job);
-        var content = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false);
+        var content = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false,
+            Heading: "CREASE PATTERN OF THE WHOLE MODEL - A DRAWING, NOT A SHEET TO CUT");
         double width = Math.Max((maxX - minX) * k + 2 * border, MinimumLegendWidthMm + 2 * border);
         var classes = lines.Select(l => l.Class).Distinct().ToArray();
         double strip = SheetAnnotations.RequiredStripHeight(width - 2 * border, content, styles, classes);

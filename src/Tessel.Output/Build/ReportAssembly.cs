@@ -23,8 +23,8 @@ public static class ReportAssembly
         {
             new("Target", target.Description),
             new("Family", $"{mesh.Family}: {mesh.VertexCount} vertices, {mesh.FaceCount} facets"),
-            new("Scale", $"1:{job.Fabrication.Scale.ToString("0.###", Inv)}"),
-            new("Fit", $"{FitStage.Verdict(f)} ({f.StopReason}), {f.History.Count} steps"),
+            new("Scale", job.Fabrication.ScaleReason is { } why ? $"auto, {why}" : $"1:{job.Fabrication.Scale.ToString("0.###", Inv)}"),
+            new("Fit", $"{FitStage.Verdict(f)} ({Wording.StopDetail(f.StopReason)}), {Wording.Count(f.History.Count, "step")}"),
             new("Shape error RMS / max", $"{Mm(f.Shape.Rms)} / {Mm(f.Shape.Max)} mm full scale"),
             new("Developability residual", $"{f.Residuals.MaxDevelopability.ToString("0.##E+0", Inv)} rad (epsilon {f.EpsilonDeg.ToString("0.###", Inv)} deg)"),
             new("Kawasaki residual", $"{f.Residuals.MaxKawasaki.ToString("0.##E+0", Inv)} rad"),
@@ -39,7 +39,7 @@ public static class ReportAssembly
         if (sheets is not null)
         {
             var sf = sheets.Layout.Figures;
-            rows.Add(new("Sheets", $"{sf.SheetCount} x {sheets.Settings.Sheet.Name}, {sf.PartCount} parts, {sheets.Layout.Seams.Length} seams"));
+            rows.Add(new("Sheets", $"{sf.SheetCount} x {sheets.Settings.Sheet.Name}, {Wording.Count(sf.PartCount, "part")}, {Wording.Count(sheets.Layout.Seams.Length, "seam")}"));
             rows.Add(new("Cut / score / perforation", $"{M(sf.TotalCutLengthMm)} / {M(sf.ScoreLengthMm + sf.BackScoreLengthMm)} / {M(sf.PerforationCutLengthMm)} m"));
             rows.Add(new("Laser time (estimate)", $"{(sf.EstimatedLaserSeconds / 60).ToString("0.#", Inv)} min"));
         }
@@ -50,6 +50,7 @@ public static class ReportAssembly
         {
             Description = job.Description ?? "",
             ParetoFront = front,
+            ParetoNote = ParetoNote(job, fit),
             Convergence = f.History.Select(h => new ConvergenceStep(h.Index, h.Objective,
                 Math.Max(Math.Max(h.MaxPlanarity, h.MaxKawasaki), Math.Max(h.MaxDevelopabilityExcess, h.MaxBoundViolation)))).ToArray(),
             Keyframes = keyframes,
@@ -58,6 +59,21 @@ public static class ReportAssembly
             Cautions = SheetAnnotations.CautionParagraphs.ToArray(),
             Sheets = sheets?.Sheets.ToArray() ?? [],
         };
+    }
+
+    /// <summary>Why a sweep point can differ from the fit used for the sheets at the same epsilon: the
+    /// sweep runs one start from the plain drape and warm-starts each later epsilon from the previous
+    /// result, while the fit for the sheets keeps the best of the job's starts from perturbed drapes. The
+    /// problem is not convex, so different starts settle in different local optima.</summary>
+    private static string ParetoNote(Job job, FitStageResult fit)
+    {
+        if (fit.Front.Count == 0) return "";
+        var f = fit.Fit;
+        string note = $"Each point is a separate single-start fit, warm-started from the previous epsilon; the fit used for the sheets is the best of {Wording.Count(job.Fitting.Starts, "start")} from perturbed drapes, so at the same epsilon it can settle in another local optimum.";
+        var same = fit.Front.FirstOrDefault(p => Math.Abs(p.EpsilonDeg - f.EpsilonDeg) < 1e-12);
+        if (same is not null)
+            note += $" At epsilon {f.EpsilonDeg.ToString("0.###", Inv)} deg the sweep reached {Mm(same.ShapeRms)} mm RMS{(same.Converged ? "" : " (not converged)")}, the fit used for the sheets {Mm(f.Shape.Rms)} mm.";
+        return note;
     }
 
     private static string Mm(double metres) => (metres * 1000).ToString("0.##", Inv);

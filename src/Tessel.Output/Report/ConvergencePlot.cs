@@ -33,7 +33,7 @@ public static class ConvergencePlot
         var yt = Enumerable.Range(dl, dh - dl + 1).Where(d => (dh - d) % every == 0).Select(d => Math.Pow(10, d)).ToArray();
         axes.Draw(pc, xt, xt.Length > 1 ? xt[1] - xt[0] : 1, yt,
             y => "1e" + ((int)Math.Round(Math.Log10(y))).ToString(CultureInfo.InvariantCulture),
-            "iteration", "value (log scale)");
+            "solver step", "rad / no unit (log scale)");
         pc.Text("solver convergence", axes.Left, 28, 15, PreviewCanvas.Ink);
         if (steps.Length == 0)
         {
@@ -50,13 +50,13 @@ public static class ConvergencePlot
         Series(pc.Canvas, axes, ordered, s => s.Objective, objective);
 
         // Legend in the upper right corner of the plot area.
-        float lx = axes.Right - 170, ly = axes.Top + 16;
+        float lx = axes.Right - 230, ly = axes.Top + 16;
         using var box = PreviewCanvas.Fill(new SKColor(255, 255, 255, 230));
         pc.Canvas.DrawRect(new SKRect(lx - 8, ly - 12, axes.Right - 6, ly + 30), box);
         pc.Canvas.DrawLine(lx, ly, lx + 28, ly, residual);
-        pc.Text("max residual", lx + 36, ly + 4, 12, PreviewCanvas.Ink);
+        pc.Text("largest constraint residual, rad", lx + 36, ly + 4, 12, PreviewCanvas.Ink);
         pc.Canvas.DrawLine(lx, ly + 20, lx + 28, ly + 20, objective);
-        pc.Text("objective", lx + 36, ly + 24, 12, PreviewCanvas.Ink);
+        pc.Text("objective, no unit", lx + 36, ly + 24, 12, PreviewCanvas.Ink);
         return new PreviewImage(pc.ToPng(), width, height);
     }
 

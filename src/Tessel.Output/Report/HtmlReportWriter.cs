@@ -62,8 +62,11 @@ public static class HtmlReportWriter
         sb.Append("<section class=\"wide\">\n<h2>figures</h2>\n<div class=\"figures\">\n");
         Figure(sb, preview.Image, "Folded model coloured by distance to the target; bar in mm at model and full scale.");
         Figure(sb, CreasePatternPreview.Render(model), "Flat crease pattern: solid rust = mountain, dashed blue = valley.");
-        Figure(sb, ParetoPlot.Render(model.ParetoFront), "Shape error against the developability tolerance of each fit.");
-        Figure(sb, ConvergencePlot.Render(model.Convergence), "Solver convergence, logarithmic scale.");
+        // Plots of what this build did not compute are left out rather than drawn empty.
+        if (model.ParetoFront.Length > 0)
+            Figure(sb, ParetoPlot.Render(model.ParetoFront), "Shape error against the developability tolerance of each fit. " + model.ParetoNote);
+        if (model.Convergence.Length > 0)
+            Figure(sb, ConvergencePlot.Render(model.Convergence), "Solver convergence of the fit used for the sheets: largest constraint residual in radians and the dimensionless objective, per solver step, on a logarithmic scale.");
         sb.Append("</div>\n</section>\n");
 
         if (model.Sheets.Length > 0)
@@ -72,6 +75,14 @@ public static class HtmlReportWriter
             foreach (var sheet in model.Sheets)
                 Figure(sb, SheetThumbnail.Render(sheet), $"Sheet {sheet.Number} ({sheet.Side}), {sheet.Lines.Length} lines.");
             sb.Append("</div>\n</section>\n");
+        }
+
+        if (model.Files.Length > 0)
+        {
+            sb.Append("<section class=\"wide\">\n<h2>files</h2>\n<ul class=\"files\">\n");
+            foreach (string file in model.Files)
+                sb.Append("<li><a href=\"").Append(E(Uri.EscapeDataString(file).Replace("%2F", "/"))).Append("\">").Append(E(file)).Append("</a></li>\n");
+            sb.Append("</ul>\n</section>\n");
         }
 
         sb.Append("<section class=\"wide\">\n<h2>cautions</h2>\n");

@@ -6,7 +6,8 @@ namespace Tessel.Output.Report;
 /// previews, each through a temporary file and a rename so no reader sees a half-written file.</summary>
 public static class ReportFiles
 {
-    /// <summary>File names written by <see cref="WriteAll"/>, in the order written.</summary>
+    /// <summary>File names <see cref="WriteAll"/> may write, in the order written (the trade-off and
+    /// convergence plots only when the model has their data).</summary>
     public static readonly string[] Names =
         ["report.html", "summary.md", "preview-model.png", "preview-pattern.png", "preview-tradeoff.png", "preview-convergence.png"];
 
@@ -30,16 +31,17 @@ public static class ReportFiles
     {
         model.Validate();
         var preview = FoldedModelPreview.Render(model);
-        byte[][] contents =
+        byte[]?[] contents =
         [
             Encoding.UTF8.GetBytes(HtmlReportWriter.Render(model)),
             Encoding.UTF8.GetBytes(MarkdownSummaryWriter.Render(model)),
             preview.Image.Png,
             CreasePatternPreview.Render(model).Png,
-            ParetoPlot.Render(model.ParetoFront).Png,
-            ConvergencePlot.Render(model.Convergence).Png,
+            // Plots of what was not computed are not written.
+            model.ParetoFront.Length > 0 ? ParetoPlot.Render(model.ParetoFront).Png : null,
+            model.Convergence.Length > 0 ? ConvergencePlot.Render(model.Convergence).Png : null,
         ];
-        return Names.Select((n, i) => (n, contents[i])).ToArray();
+        return Names.Select((n, i) => (n, contents[i])).Where(c => c.Item2 is not null).Select(c => (c.n, c.Item2!)).ToArray();
     }
 
     /// <summary>Writes bytes to a temporary name beside <paramref name="path"/>, then renames it over the target.</summary>

@@ -33,6 +33,10 @@ public sealed record ReportModel
     public required double[] FlatPositions { get; init; }
     /// <summary>Fits on the accuracy/buildability trade-off curve (may be empty).</summary>
     public ParetoPoint[] ParetoFront { get; init; } = [];
+    /// <summary>Says how the trade-off points relate to the fit used for the sheets (empty without a sweep).</summary>
+    public string ParetoNote { get; init; } = "";
+    /// <summary>Every file of the build, relative to the report, in the order written (may be empty).</summary>
+    public string[] Files { get; init; } = [];
     /// <summary>Solver history of the chosen fit (may be empty).</summary>
     public ConvergenceStep[] Convergence { get; init; } = [];
     /// <summary>States along the rigid folding path in increasing progress (may be empty: the viewer then

@@ -4,7 +4,7 @@ using System.Text;
 namespace Tessel.Output.Report;
 
 /// <summary>A few aligned lines about a build for the terminal: the summary rows, the distance to the
-/// target at both scales and the warnings, each warning on its own line.</summary>
+/// target at both scales and the warnings, each warning on its own line, then the one-line caution.</summary>
 public static class TerminalSummary
 {
     /// <summary>The lines joined with "\n" (no trailing line end). Labels are padded to one column.</summary>
@@ -26,6 +26,7 @@ public static class TerminalSummary
             sb.Append('\n').Append("  ").Append(label.PadRight(width)).Append("  ").Append(value);
         foreach (var w in model.Warnings)
             sb.Append('\n').Append("  ! ").Append(OneLine(w));
+        sb.Append('\n').Append("  ").Append(Tessel.Core.Sheets.SheetAnnotations.CautionLine);
         return sb.ToString();
     }
 

@@ -9,7 +9,7 @@ namespace Tessel.Output.Sheets;
 /// <remarks>
 /// Follows the Autodesk DXF Reference for R12: group code / value pairs in a HEADER ($ACADVER,
 /// $EXTMIN/$EXTMAX, $LIMMIN/$LIMMAX), a TABLES section with one LTYPE per dashed class and one LAYER
-/// per line class (colour index, line type), and ENTITIES: LINE for two-point lines and
+/// per line class (colour index, line type; draw-only layers switched off by a negative colour), and ENTITIES: LINE for two-point lines and
 /// POLYLINE/VERTEX/SEQEND (flag 70 = 1 when closed) for longer ones. No LWPOLYLINE (R2000+) and no
 /// $INSUNITS (R2000+): the units are millimetres by this writer's contract, and a comment
 /// (group 999) says so. DXF y points up, so y is flipped: y_dxf = sheet height - y_sheet.
@@ -77,7 +77,10 @@ public sealed class DxfSheetWriter : ISheetWriter
         foreach (LineClass c in LineStyleTable.FabricationOrder)
         {
             LineStyle s = styles[c];
-            dxf.Pair(0, "LAYER").Pair(2, s.LayerName).Pair(70, "0").Pair(62, Int(s.DxfColourIndex))
+            // A negative colour number turns a layer off (R12 layer table): print-only notes stay in
+            // the file for reading, and a cutter sent the whole drawing skips them.
+            int colour = s.Operation == LineOperation.DrawOnly ? -s.DxfColourIndex : s.DxfColourIndex;
+            dxf.Pair(0, "LAYER").Pair(2, s.LayerName).Pair(70, "0").Pair(62, Int(colour))
                .Pair(6, s.IsContinuous ? "CONTINUOUS" : LineTypeName(s));
         }
         dxf.Pair(0, "ENDTAB");

@@ -38,14 +38,16 @@ internal static partial class CliHarness
         return (code, o.ToString(), e.ToString(), escaped, !done);
     }
 
-    /// <summary>What the loader and target factory say about a job file: null when valid, otherwise
+    /// <summary>What the loader, the target factory and the family's generator say about a job file: null when valid, otherwise
     /// the JobError. Anything else is a crash and is recorded.</summary>
     public static (bool Valid, string? Crash) Oracle(string file)
     {
         try
         {
             var job = JobLoader.Load(file);
-            TargetFactory.Build(job.Target, job.BaseDirectory, HeightMapImage.Decode);
+            var target = TargetFactory.Build(job.Target, job.BaseDirectory, HeightMapImage.Decode);
+            // validate also refuses a family that cannot make a pattern on the target.
+            Tessel.Cli.Commands.CheckFamilyServes(job, target);
             return (true, null);
         }
         catch (JobError) { return (false, null); }

@@ -69,14 +69,14 @@ public class GeneratedCorpusTests(ITestOutputHelper log)
     }
 
     [Fact]
-    public void EmptyFileIsMalformedJsonAtLineOneColumnOne()
+    public void EmptyFileIsReportedAtLineOneColumnOne()
     {
         string dir = TestPaths.NewTempFolder();
         string file = Path.Combine(dir, "empty.json");
         File.WriteAllBytes(file, []);
         var r = CliHarness.Run("validate", file);
         Assert.Equal(ExitCodes.BadInput, r.Code);
-        Assert.StartsWith("tessel: empty.json:1:1: malformed JSON: ", r.Err);
+        Assert.StartsWith("tessel: empty.json:1:1: malformed JSON: the file is empty; ", r.Err);
     }
 
     [Fact]

@@ -38,8 +38,8 @@ public class SummaryWriterTests
         var m = ReportDemoData.Build();
         var lines = TerminalSummary.Format(m).Split('\n');
         Assert.Equal("Larkfield Yard shade trial", lines[0]);
-        // Rows: 4 summary rows, 2 distance lines, the warning count, then 1 warning.
-        Assert.Equal(1 + 4 + 2 + 1 + 1, lines.Length);
+        // Rows: 4 summary rows, 2 distance lines, the warning count, then 1 warning and the caution.
+        Assert.Equal(1 + 4 + 2 + 1 + 1 + 1, lines.Length);
         int longest = "max deviation (full scale)".Length;
         for (int i = 1; i < 8; i++)
         {
@@ -49,5 +49,9 @@ public class SummaryWriterTests
         }
         Assert.Contains("mm on the model at 1:50", lines[6]);
         Assert.StartsWith("  ! 2 vertices", lines[8]);
+        // The caution is one line and defers to the workshop's own rules (fabrication.md, Safety).
+        Assert.Equal("  " + Tessel.Core.Sheets.SheetAnnotations.CautionLine, lines[9]);
+        foreach (string must in new[] { "workshop's rules", "machine maker's instructions", "training", "polypropylene", "adhesives", "PVC" })
+            Assert.Contains(must, lines[9]);
     }
 }

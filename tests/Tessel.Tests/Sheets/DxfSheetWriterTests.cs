@@ -58,7 +58,8 @@ public class DxfSheetWriterTests
         {
             LineStyle s = LineStyleTable.Default[c];
             var layer = layers.Single(l => l[2] == s.LayerName);
-            Assert.Equal(s.DxfColourIndex.ToString(CultureInfo.InvariantCulture), layer[62]);
+            int expected = s.Operation == LineOperation.DrawOnly ? -s.DxfColourIndex : s.DxfColourIndex;
+            Assert.Equal(expected.ToString(CultureInfo.InvariantCulture), layer[62]);
             Assert.True(ltypes.ContainsKey(layer[6]), $"layer {s.LayerName} uses undefined line type {layer[6]}");
         }
         // Valley: dashed 12d/3d with d = 0.25 mm: 3 mm dash, 0.75 mm gap, pattern length 3.75 mm.
