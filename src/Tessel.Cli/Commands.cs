@@ -242,12 +242,12 @@ internal static class Commands
         catch (JobError e)
         {
             var curvature = Tessel.Core.Tessellation.CurvatureFigures.Sample(target);
-            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(job.Tessellation.Family, curvature);
+            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(job.Tessellation.Family, target, curvature);
             // The family's own advice may call the pairing fine in general; then name the first other
             // family that suits this target's curvature.
             string? better = advice.Better ?? Catalog.Families.Select(f => f.Name)
                 .Where(f => f != job.Tessellation.Family)
-                .FirstOrDefault(f => Tessel.Core.Tessellation.FamilyAdvice.For(f, curvature).Suits);
+                .FirstOrDefault(f => Tessel.Core.Tessellation.FamilyAdvice.For(f, target, curvature).Suits);
             throw new JobError(e.Where, e.Problem + (better is null ? "" : $"; the {better} family suits this target (tessellation.family or --family)"));
         }
     }
@@ -263,7 +263,7 @@ internal static class Commands
             if (ScaffoldInputs.For(kind) is var (name, bytes)) File.WriteAllBytes(Path.Combine(dir, name), bytes);
             var job = JobLoader.Parse(text, $"{kind}-{family}.json", dir);
             var target = TargetFactory.Build(job.Target, dir, HeightMapImage.Decode);
-            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(family, Tessel.Core.Tessellation.CurvatureFigures.Sample(target));
+            var advice = Tessel.Core.Tessellation.FamilyAdvice.For(family, target);
             if (!advice.Suits)
                 throw new JobError("--family", $"{family} does not suit the {kind} target this scaffold starts from: {advice.Message} Use --family {advice.Better ?? "free-triangulated"} instead");
             CheckFamilyServes(job, target);

@@ -47,13 +47,6 @@ internal sealed class FitRun
     private const string Feasibility = "feasibility", Optimality = "epsilon-constraint", Projection = "projection";
     private const double FeasibilityPull = 1e-3;
     private const double HandOver = 1e-6;
-    /// <summary>Longest vertex move of one step, in mean edge lengths. Far from the constraint set the
-    /// Gauss-Newton step can be many edges long along weakly determined sheet-wide modes and is then
-    /// rejected over and over while the damping climbs; capping it in edge units keeps steps inside
-    /// the region where the linear model holds (a trust region measured in the mesh's own length).</summary>
-    private const double LongestMoveInEdges = 0.25;
-    /// <summary>A rejected step halves the cap; an accepted one doubles it back up to the longest.</summary>
-    private const double MoveCapFactor = 2;
 
     private readonly GeneratedPattern _pattern;
     private readonly FitRows _rows;
@@ -161,7 +154,6 @@ internal sealed class FitRun
         double damping = phase == Optimality ? _damping : initialDamping;
         int used = 0, rejectedInRow = 0;
         int n = _system.Unknowns;
-        double moveCap = LongestMoveInEdges * _rows.Scale;
         // Scratch owned by the run: large sheets would otherwise allocate (and collect) hundreds of MB per step.
         var s = _scratch ??= new Scratch(n, _x.Length, _rows.RowCount, EqualityGradientLength());
         double[] rhs = s.Rhs, step = s.Step, correction = s.Correction, soc = s.Soc;
@@ -191,7 +183,6 @@ internal sealed class FitRun
             Array.Clear(step);
             var stats = TimedSolve(rhs, step, again: false);
             used++;
-            if (phase != Optimality) CapMove(step, moveCap);
             _system.Apply(_x, step, trial);
             _value.AsSpan().CopyTo(savedValue); _weight.AsSpan().CopyTo(savedWeight); SaveWeightedConstraintGradients(s);
             double trialMerit = double.PositiveInfinity;
@@ -238,7 +229,6 @@ internal sealed class FitRun
                 double decrease = (merit - trialMerit) / Math.Max(merit, 1e-300);
                 merit = trialMerit;
                 damping = Math.Max(damping / 3, 1e-12);
-                moveCap = Math.Min(moveCap * MoveCapFactor, LongestMoveInEdges * _rows.Scale);
                 rejectedInRow = 0;
                 assembled = false;
                 Record(phase, true);
@@ -251,25 +241,11 @@ internal sealed class FitRun
                 Evaluate(_x); // re-evaluated rather than restored from a copy of every row gradient (55 MB at 100 x 100)
                 Merit(phase);
                 damping *= 4;
-                moveCap /= MoveCapFactor;
                 if (phase == Optimality) _damping = damping;
                 Record(phase, false);
                 if (++rejectedInRow >= 12 || damping > 1e12) { stalled = true; return; }
             }
         }
-    }
-
-    /// <summary>Scales <paramref name="step"/> (3 per free vertex) so that no vertex moves farther than
-    /// <paramref name="cap"/> metres.</summary>
-    private static void CapMove(double[] step, double cap)
-    {
-        double longest = 0;
-        for (int a = 0; a + 2 < step.Length; a += 3)
-            longest = Math.Max(longest, step[a] * step[a] + step[a + 1] * step[a + 1] + step[a + 2] * step[a + 2]);
-        longest = Math.Sqrt(longest);
-        if (!(longest > cap)) return;
-        double scale = cap / longest;
-        for (int k = 0; k < step.Length; k++) step[k] *= scale;
     }
 
     private SolveStats TimedSolve(double[] rhs, double[] x, bool again)

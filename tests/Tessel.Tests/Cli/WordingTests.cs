@@ -125,7 +125,8 @@ public class WordingTests
     [Fact]
     public void GradingAdviceNamesOnlyJobFields()
     {
-        // The target stops at |y| = 0.51 m; the graded zig-zag reaches past it near the footprint's corners.
+        // The target stops at |y| = 0.51 m; the graded zig-zag would reach past it near the footprint's
+        // corners, so the generator shrinks the grading there instead of refusing with advice about it.
         string dir = TestPaths.NewTempFolder();
         string job = Path.Combine(dir, "kiln.json");
         File.WriteAllText(job, """
@@ -133,8 +134,8 @@ public class WordingTests
               "tessellation": { "family": "reverse-curvature", "cellsX": 4, "cellsY": 4 }, "fabrication": { "scale": 10 } }
             """);
         var (code, _, err) = Run("build", job, "--quiet", "--out", Path.Combine(dir, "out"));
-        Assert.Equal(ExitCodes.BadInput, code);
-        Assert.Contains("where the target has no surface; use more cells (tessellation.cellsX and cellsY) or a smaller target.footprint", err);
+        Assert.True(code is ExitCodes.Ok or ExitCodes.NotConverged, err);
         Assert.DoesNotContain("Grading", err);
+        Assert.DoesNotContain("where the target has no surface", err);
     }
 }

@@ -55,6 +55,44 @@ public class RobustFitTests(ITestOutputHelper output)
     }
 
     [Fact]
+    public void AMeshWithACurvedPlanIsBuildable()
+    {
+        // An annular sector (radii 1.8 to 3.9 m, 0 to 100 deg) of the gentle dome z = 1 - 0.04 r^2, as an
+        // OBJ with no footprint: the plan outline becomes the footprint and the net is cut to it.
+        string folder = Path.Combine(Path.GetTempPath(), "tessel-robust-" + Guid.NewGuid().ToString("N"));
+        Directory.CreateDirectory(folder);
+        var obj = new System.Text.StringBuilder();
+        const int nr = 10, na = 24;
+        for (int i = 0; i <= nr; i++)
+            for (int k = 0; k <= na; k++)
+            {
+                double r = 1.8 + 2.1 * i / nr, a = 100.0 * k / na * Math.PI / 180;
+                obj.Append(System.FormattableString.Invariant($"v {r * Math.Cos(a):F6} {r * Math.Sin(a):F6} {1 - 0.04 * r * r:F6}\n"));
+            }
+        for (int i = 0; i < nr; i++)
+            for (int k = 0; k < na; k++)
+            {
+                int a = i * (na + 1) + k + 1, b = a + 1, c = a + na + 1, d = c + 1;
+                obj.Append(System.FormattableString.Invariant($"f {a} {c} {d}\nf {a} {d} {b}\n"));
+            }
+        File.WriteAllText(Path.Combine(folder, "ring.obj"), obj.ToString());
+        string json = """{"name":"ring","seed":2,"target":{"kind":"mesh","mesh":"ring.obj"},"tessellation":{"family":"free-triangulated","cellsX":8,"cellsY":8}}""";
+        var job = JobLoader.Parse(json, "test job", folder);
+        var target = TargetStage.Run(job, null, ProgressReporter.Silent).Target;
+        var tessellation = TessellationStage.Run(job, target, ProgressReporter.Silent);
+        var fit = FitStage.Run(job, tessellation.Pattern!, target, ProgressReporter.Silent, tessellation.DrapeOn).Fit;
+        output.WriteLine($"ring: {FitStage.Verdict(fit)}; rms {fit.Shape.Rms * 1000:0.##} mm, {fit.Mesh.VertexCount} vertices");
+        Assert.True(fit.Buildable, fit.StopReason);
+        // Developability (classical): every interior vertex of the cut net sums to 2 pi.
+        foreach (int v in InteriorVertices(fit.Mesh)) Assert.InRange(Math.Abs(AngleSum(fit.Mesh, v) - 2 * Math.PI), 0, 1e-8);
+        // Every vertex over the mesh's plan: the target has a height there.
+        for (int v = 0; v < fit.Mesh.VertexCount; v++)
+            Assert.True(double.IsFinite(target.HeightAt(fit.Mesh.Vertex(v).X, fit.Mesh.Vertex(v).Y)) || fit.Mesh.BoundaryVertices()[v]);
+        Assert.True(fit.Mesh.VertexCount > 20);
+        Assert.InRange(fit.Shape.Rms, 0, 0.25);
+    }
+
+    [Fact]
     public void ABuildableFitCutShortIsBuildableButNotFinished()
     {
         // A saddle job with a cap too small for phase 2 to finish: the constraints hold, the shape does not.
