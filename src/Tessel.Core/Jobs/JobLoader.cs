@@ -405,6 +405,10 @@ public static partial class JobLoader
         r.RejectUnknown();
 
         if (!autoScale) Positive(r.PathOf("scale"), scale, "number n of the scale 1:n, or \"auto\"", required: true);
+        // Beyond these a model is either larger than any sheet or smaller than any cutter's spot (common
+        // practice, no source): the sheet arithmetic would run out of range before saying so.
+        if (!autoScale && !(scale >= 1e-3 && scale <= 1e6))
+            throw new JobError(r.PathOf("scale"), $"must be a number n of the scale 1:n from 0.001 to 1000000, or \"auto\" (got {Format(scale)})");
         if (maxSheets < 1 || maxSheets > 1000) throw new JobError(r.PathOf("maxSheets"), $"must be a whole number from 1 to 1000 (got {maxSheets})");
         if (string.IsNullOrWhiteSpace(material)) throw new JobError(r.PathOf("material"), "must name a material; see 'tessel catalog materials'");
         CheckChoice(r.PathOf("material"), material, Catalog.Materials.Select(m => m.Name));
