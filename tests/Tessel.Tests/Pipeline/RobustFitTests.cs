@@ -24,12 +24,12 @@ public class RobustFitTests(ITestOutputHelper output)
         return FitStage.Run(job, tessellation.Pattern!, target, ProgressReporter.Silent, tessellation.DrapeOn).Fit;
     }
 
-    // Bands: about three times the RMS measured when the test was written (saddle 9.3 mm, dome 3.0 mm,
-    // wave 123 mm, pentagon 3.6 mm), room for another local optimum (the objective is flat along
-    // sheet-wide modes). The wave's 6 cells span 1.1 wavelengths: a Miura sheet that coarse stays
-    // buildable only by staying near its best-fit plane (a wave's own RMS about that plane is 177 mm).
+    // Bands: two to five times the RMS measured when the test was written (saddle 21.5 mm with 27 creases
+    // lengthened to the 3 mm minimum, dome 4.9 mm, wave 32 mm after a continuation, pentagon 4.2 mm),
+    // room for another local optimum (the objective is flat along sheet-wide modes). The wave's 6 cells
+    // span 1.1 wavelengths; its own RMS about its best-fit plane is 177 mm, which the band stays under.
     [Theory]
-    [InlineData("saddle", """{"kind":"hyperbolic-paraboloid","c":7,"footprint":{"width":4,"depth":3.6}}""", "miura", 6, 0.030)]
+    [InlineData("saddle", """{"kind":"hyperbolic-paraboloid","c":7,"footprint":{"width":4,"depth":3.6}}""", "miura", 6, 0.060)]
     [InlineData("dome", """{"kind":"spherical-cap","radius":8,"rise":1,"footprint":{"width":4.4,"depth":4.4}}""", "waterbomb", 6, 0.010)]
     [InlineData("wave", """{"kind":"sinusoidal-wave","amplitude":0.25,"wavelength":4.2,"footprint":{"width":4.6,"depth":3.2}}""", "miura", 6, 0.170)]
     [InlineData("pentagon footprint", """{"kind":"hyperbolic-paraboloid","c":11,"footprint":{"corners":[[2.2,0],[0.7,2.1],[-1.8,1.3],[-1.8,-1.3],[0.7,-2.1]]}}""", "miura", 6, 0.015)]
@@ -57,25 +57,12 @@ public class RobustFitTests(ITestOutputHelper output)
     [Fact]
     public void AMeshWithACurvedPlanIsBuildable()
     {
-        // An annular sector (radii 1.8 to 3.9 m, 0 to 100 deg) of the gentle dome z = 1 - 0.04 r^2, as an
+        // An annular sector (radii 1.8 to 3.9 m, 0 to 100 deg) of the gentle dome z = 1.2 - 0.05 r^2, as an
         // OBJ with no footprint: the plan outline becomes the footprint and the net is cut to it.
         string folder = Path.Combine(Path.GetTempPath(), "tessel-robust-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(folder);
-        var obj = new System.Text.StringBuilder();
-        const int nr = 10, na = 24;
-        for (int i = 0; i <= nr; i++)
-            for (int k = 0; k <= na; k++)
-            {
-                double r = 1.8 + 2.1 * i / nr, a = 100.0 * k / na * Math.PI / 180;
-                obj.Append(System.FormattableString.Invariant($"v {r * Math.Cos(a):F6} {r * Math.Sin(a):F6} {1 - 0.04 * r * r:F6}\n"));
-            }
-        for (int i = 0; i < nr; i++)
-            for (int k = 0; k < na; k++)
-            {
-                int a = i * (na + 1) + k + 1, b = a + 1, c = a + na + 1, d = c + 1;
-                obj.Append(System.FormattableString.Invariant($"f {a} {c} {d}\nf {a} {d} {b}\n"));
-            }
-        File.WriteAllText(Path.Combine(folder, "ring.obj"), obj.ToString());
+        string obj = Tessel.Tests.Tessellation.Families.PolygonFootprintTests.RingSectorObj(1.8, 3.9, 0, 100, 10, 24);
+        File.WriteAllText(Path.Combine(folder, "ring.obj"), obj);
         string json = """{"name":"ring","seed":2,"target":{"kind":"mesh","mesh":"ring.obj"},"tessellation":{"family":"free-triangulated","cellsX":8,"cellsY":8}}""";
         var job = JobLoader.Parse(json, "test job", folder);
         var target = TargetStage.Run(job, null, ProgressReporter.Silent).Target;
@@ -89,14 +76,15 @@ public class RobustFitTests(ITestOutputHelper output)
         for (int v = 0; v < fit.Mesh.VertexCount; v++)
             Assert.True(double.IsFinite(target.HeightAt(fit.Mesh.Vertex(v).X, fit.Mesh.Vertex(v).Y)) || fit.Mesh.BoundaryVertices()[v]);
         Assert.True(fit.Mesh.VertexCount > 20);
-        Assert.InRange(fit.Shape.Rms, 0, 0.25);
+        // Measured 69 mm; the band stays under the dome's own 0.33 m of height change across the ring.
+        Assert.InRange(fit.Shape.Rms, 0, 0.2);
     }
 
     [Fact]
     public void ABuildableFitCutShortIsBuildableButNotFinished()
     {
         // A saddle job with a cap too small for phase 2 to finish: the constraints hold, the shape does not.
-        string json = """{"name":"short","seed":3,"target":{"kind":"hyperbolic-paraboloid","c":6,"footprint":{"width":3,"depth":3}},"tessellation":{"family":"miura","cellsX":6,"cellsY":6},"fitting":{"maxIterations":40}}""";
+        string json = """{"name":"short","seed":3,"target":{"kind":"hyperbolic-paraboloid","c":6,"footprint":{"width":3,"depth":3}},"tessellation":{"family":"miura","cellsX":6,"cellsY":6},"fitting":{"maxIterations":30,"bounds":{"minEdgeLengthMm":0.01}}}""";
         var job = JobLoader.Parse(json, "test job", Path.GetTempPath());
         var target = TargetStage.Run(job, null, ProgressReporter.Silent).Target;
         var tessellation = TessellationStage.Run(job, target, ProgressReporter.Silent);
