@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text;
 using SkiaSharp;
 
 namespace Tessel.Benchmarks;
@@ -10,7 +8,7 @@ public static class RobustnessAssets
     public static void Write(string folder)
     {
         File.WriteAllBytes(Path.Combine(folder, "terrain.png"), Terrain(96, 64));
-        File.WriteAllText(Path.Combine(folder, "ring-sector.obj"), RingSector(2.0, 4.2, 0, 110, 14, 28));
+        File.WriteAllText(Path.Combine(folder, "ring-sector.obj"), Tessel.Tests.Targets.RingSectorMesh.Obj());
     }
 
     /// <summary>A gray PNG of two soft hills and a shallow hollow (white = high).</summary>
@@ -29,25 +27,5 @@ public static class RobustnessAssets
             }
         using var image = SKImage.FromBitmap(bitmap);
         return image.Encode(SKEncodedImageFormat.Png, 100).ToArray();
-    }
-
-    /// <summary>OBJ of an annular sector (radii r0..r1, angles a0..a1 degrees) of a gentle dome
-    /// z = 1.2 - 0.05 r^2, metres, z up.</summary>
-    private static string RingSector(double r0, double r1, double a0, double a1, int nr, int na)
-    {
-        var sb = new StringBuilder("# annular sector of a gentle dome (invented test shape), metres\n");
-        for (int i = 0; i <= nr; i++)
-            for (int k = 0; k <= na; k++)
-            {
-                double r = r0 + (r1 - r0) * i / nr, a = (a0 + (a1 - a0) * k / na) * Math.PI / 180;
-                sb.Append(CultureInfo.InvariantCulture, $"v {r * Math.Cos(a):F6} {r * Math.Sin(a):F6} {1.2 - 0.05 * r * r:F6}\n");
-            }
-        for (int i = 0; i < nr; i++)
-            for (int k = 0; k < na; k++)
-            {
-                int a = i * (na + 1) + k + 1, b = a + 1, c = a + na + 1, d = c + 1;
-                sb.Append(CultureInfo.InvariantCulture, $"f {a} {c} {d}\nf {a} {d} {b}\n");
-            }
-        return sb.ToString();
     }
 }

@@ -61,7 +61,7 @@ public class RobustFitTests(ITestOutputHelper output)
         // OBJ with no footprint: the plan outline becomes the footprint and the net is cut to it.
         string folder = Path.Combine(Path.GetTempPath(), "tessel-robust-" + Guid.NewGuid().ToString("N"));
         Directory.CreateDirectory(folder);
-        string obj = Tessel.Tests.Tessellation.Families.PolygonFootprintTests.RingSectorObj(1.8, 3.9, 0, 100, 10, 24);
+        string obj = Tessel.Tests.Targets.RingSectorMesh.Obj(1.8, 3.9, 0, 100, 10, 24);
         File.WriteAllText(Path.Combine(folder, "ring.obj"), obj);
         string json = """{"name":"ring","seed":2,"target":{"kind":"mesh","mesh":"ring.obj"},"tessellation":{"family":"free-triangulated","cellsX":8,"cellsY":8}}""";
         var job = JobLoader.Parse(json, "test job", folder);

@@ -1,5 +1,3 @@
-using System.Globalization;
-using System.Text;
 using Tessel.Core.Fitting;
 using Tessel.Core.Geometry;
 using Tessel.Core.Targets;
@@ -13,27 +11,7 @@ namespace Tessel.Tests.Tessellation.Families;
 /// (default footprint: its plan outline) and a hexagonal footprint on a saddle. Invented shapes.</summary>
 public class PolygonFootprintTests(ITestOutputHelper output)
 {
-    /// <summary>OBJ text of an annular sector (radii r0..r1 m, angles a0..a1 degrees, nr x na quads split
-    /// in two) of the gentle dome z = 1.2 - 0.05 r^2.</summary>
-    internal static string RingSectorObj(double r0 = 2.0, double r1 = 4.2, double a0 = 0, double a1 = 110, int nr = 14, int na = 28)
-    {
-        var sb = new StringBuilder("# annular sector of a gentle dome (invented test shape), metres\n");
-        for (int i = 0; i <= nr; i++)
-            for (int k = 0; k <= na; k++)
-            {
-                double r = r0 + (r1 - r0) * i / nr, a = (a0 + (a1 - a0) * k / na) * Math.PI / 180;
-                sb.Append(CultureInfo.InvariantCulture, $"v {r * Math.Cos(a):F6} {r * Math.Sin(a):F6} {1.2 - 0.05 * r * r:F6}\n");
-            }
-        for (int i = 0; i < nr; i++)
-            for (int k = 0; k < na; k++)
-            {
-                int a = i * (na + 1) + k + 1, b = a + 1, c = a + na + 1, d = c + 1;
-                sb.Append(CultureInfo.InvariantCulture, $"f {a} {c} {d}\nf {a} {d} {b}\n");
-            }
-        return sb.ToString();
-    }
-
-    internal static MeshSurface RingSector() => new(ObjMeshReader.Parse(RingSectorObj(), "ring-sector.obj"), null, "ring-sector.obj");
+    internal static MeshSurface RingSector() => new(ObjMeshReader.Parse(Tessel.Tests.Targets.RingSectorMesh.Obj(), "ring-sector.obj"), null, "ring-sector.obj");
 
     private static readonly Footprint Hexagon = Footprint.Polygon(
         [new(2.4, 0), new(1.2, 2.1), new(-1.2, 2.1), new(-2.4, 0), new(-1.2, -2.1), new(1.2, -2.1)]);
