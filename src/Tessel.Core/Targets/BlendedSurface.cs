@@ -21,8 +21,6 @@ public sealed class BlendedSurface : GraphSurface
         _target = target; (_a, _b, _c) = plane; _s = share;
     }
 
-    public double Share => _s;
-
     public override string Description => _s == 1 ? _target.Description : $"{_s:0.###} of the way from its best-fit plane to {_target.Description}";
 
     public override HeightJet Jet(double x, double y)
