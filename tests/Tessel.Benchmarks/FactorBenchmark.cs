@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using Tessel.Core.Fitting;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 
 namespace Tessel.Benchmarks;
 

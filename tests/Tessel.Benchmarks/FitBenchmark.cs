@@ -1,7 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using Tessel.Core.Fitting;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Miura;

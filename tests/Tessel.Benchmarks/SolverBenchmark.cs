@@ -1,6 +1,6 @@
 using System.Diagnostics;
-using Tessel.Core.Fitting.Sparse;
-using Tessel.Tests.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
+using Tessel.Tests.LinearAlgebra;
 
 namespace Tessel.Benchmarks;
 

@@ -1,5 +1,6 @@
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Checks;

@@ -1,4 +1,5 @@
 using System.Diagnostics;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Unfolding;
 

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Checks;

@@ -1,7 +1,8 @@
 using System.Diagnostics;
 using MathNet.Numerics.LinearAlgebra.Double;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Checks;

@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using MathNet.Numerics.LinearAlgebra.Double;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Checks;

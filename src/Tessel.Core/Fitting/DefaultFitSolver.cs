@@ -1,4 +1,4 @@
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 
 namespace Tessel.Core.Fitting;
 

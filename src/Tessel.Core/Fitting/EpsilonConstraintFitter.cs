@@ -1,5 +1,5 @@
 using System.Diagnostics;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 

@@ -1,5 +1,6 @@
 using Tessel.Core.Fitting.Residuals;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 

@@ -1,4 +1,4 @@
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 

@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Jobs;
 
 /// <summary>A named choice a job can make, with one line saying what it is and what it suits.</summary>
@@ -57,7 +59,7 @@ public static class Catalog
     /// <summary>Sheet orientations (fabrication.orientation).</summary>
     public static readonly IReadOnlyList<string> Orientations = ["auto", "portrait", "landscape"];
 
-    /// <summary>Line classes of the layer table, camelCase names of <see cref="Sheets.LineClass"/>.</summary>
+    /// <summary>Line classes of the layer table, camelCase names of <see cref="Model.LineClass"/>.</summary>
     public static IReadOnlyList<string> LineClasses { get; } =
-        Enum.GetNames<Sheets.LineClass>().Select(n => char.ToLowerInvariant(n[0]) + n[1..]).ToArray();
+        Enum.GetNames<Model.LineClass>().Select(n => char.ToLowerInvariant(n[0]) + n[1..]).ToArray();
 }

@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Jobs;
 
 /// <summary>The job's <c>fabrication</c> section: scale, material, sheets and line styles.</summary>

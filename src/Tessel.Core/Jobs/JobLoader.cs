@@ -2,6 +2,7 @@ using System.Text;
 using System.Text.Json;
 using System.Text.RegularExpressions;
 using static Tessel.Core.Jobs.FieldReader;
+using Tessel.Core.Model;
 
 namespace Tessel.Core.Jobs;
 
@@ -456,7 +457,7 @@ public static partial class JobLoader
     public static readonly IReadOnlyList<string> Operations = ["cut", "score", "mark", "draw-only"];
 
     /// <summary>Layer styles used when the job does not override them: the sheet stage's default table.</summary>
-    public static readonly IReadOnlyDictionary<string, LayerStyle> DefaultLayers = Enum.GetValues<Sheets.LineClass>()
+    public static readonly IReadOnlyDictionary<string, LayerStyle> DefaultLayers = Enum.GetValues<Model.LineClass>()
         .ToDictionary(c => char.ToLowerInvariant(c.ToString()[0]) + c.ToString()[1..], c =>
         {
             var style = Sheets.LineStyleTable.Default[c];

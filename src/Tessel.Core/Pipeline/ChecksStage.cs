@@ -1,6 +1,7 @@
 using Tessel.Core.Checks;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Unfolding;
 

@@ -1,7 +1,8 @@
 using Tessel.Core.Checks;
 using Tessel.Core.Fitting;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 

@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Sheets;
 
 /// <summary>The outcome of placing annotations into a region of a sheet.</summary>

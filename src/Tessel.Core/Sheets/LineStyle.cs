@@ -1,4 +1,5 @@
 using System.Globalization;
+using Tessel.Core.Model;
 
 namespace Tessel.Core.Sheets;
 

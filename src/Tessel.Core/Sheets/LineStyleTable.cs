@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Sheets;
 
 /// <summary>The user-editable table that says, for every <see cref="LineClass"/>, its colour, layer,

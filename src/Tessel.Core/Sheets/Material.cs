@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Sheets;
 
 /// <summary>A sheet material with starting values for laser work. Every number is a starting value to

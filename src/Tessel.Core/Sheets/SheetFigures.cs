@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Sheets;
 
 /// <summary>Line lengths of one fold class over all sheets.</summary>

@@ -3,6 +3,7 @@ using NtsShape = NetTopologySuite.Geometries.Geometry;
 using NetTopologySuite.Operation.Buffer;
 using NetTopologySuite.Operation.Union;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Unfolding;
 

@@ -1,5 +1,6 @@
 using System.Globalization;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 
 namespace Tessel.Core.Sheets;
 

@@ -1,5 +1,6 @@
 using NetTopologySuite.Geometries;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Unfolding;
 
 namespace Tessel.Core.Sheets;

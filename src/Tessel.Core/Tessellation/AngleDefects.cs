@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Tessellation;
 
 /// <summary>Discrete Gaussian curvature of a polyhedral surface: the angle defect 2 pi - (sum of face

@@ -1,4 +1,5 @@
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Targets;
 
 namespace Tessel.Core.Tessellation;

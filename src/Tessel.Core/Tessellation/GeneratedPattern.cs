@@ -1,3 +1,5 @@
+using Tessel.Core.Model;
+
 namespace Tessel.Core.Tessellation;
 
 /// <summary>What a tessellation family hands to the fitting stage: the draped crease mesh plus the

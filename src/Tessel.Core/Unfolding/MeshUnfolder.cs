@@ -1,6 +1,7 @@
 using Tessel.Core.Fitting;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Unfolding;

@@ -1,8 +1,9 @@
 using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Sheets;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
 using Tessel.Core.Unfolding;
 using Tessel.Output.IO;

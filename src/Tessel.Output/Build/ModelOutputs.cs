@@ -3,6 +3,7 @@ using System.Text;
 using Tessel.Core.Checks;
 using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Sheets;
 using Tessel.Core.Targets;

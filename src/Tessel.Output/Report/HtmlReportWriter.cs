@@ -1,5 +1,6 @@
 using System.Net;
 using System.Text;
+using Tessel.Core.Model;
 
 namespace Tessel.Output.Report;
 

@@ -1,4 +1,5 @@
 using SkiaSharp;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 
 namespace Tessel.Output.Report;

@@ -1,5 +1,6 @@
 using System.Text;
 using System.Text.Json;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Output.Report;

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 
 namespace Tessel.Output.Sheets;

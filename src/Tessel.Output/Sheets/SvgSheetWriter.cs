@@ -1,4 +1,5 @@
 using System.Text;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 
 namespace Tessel.Output.Sheets;

@@ -1,6 +1,7 @@
 using System.Buffers.Binary;
 using System.Text;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Output.Writers;

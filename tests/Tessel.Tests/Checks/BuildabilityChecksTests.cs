@@ -1,4 +1,5 @@
 using Tessel.Core.Checks;
+using Tessel.Core.Model;
 using Tessel.Core.Unfolding;
 
 namespace Tessel.Tests.Checks;

@@ -1,4 +1,5 @@
 using Tessel.Core.Checks;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 
 namespace Tessel.Tests.Checks;

@@ -4,6 +4,7 @@ using System.Text.Json;
 using System.Text.RegularExpressions;
 using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
 using Tessel.Output.Build;
 
@@ -104,11 +105,11 @@ public class FoldRolesTests
     public void RoleOfAnAngleFollowsItsSignAndTheFlatTolerance()
     {
         double tol = FoldRoles.FlatToleranceDeg * Math.PI / 180;
-        Assert.Equal(Core.Tessellation.CreaseRole.Mountain, FoldRoles.RoleOf(0.6 * Math.PI / 180, tol));
-        Assert.Equal(Core.Tessellation.CreaseRole.Valley, FoldRoles.RoleOf(-0.6 * Math.PI / 180, tol));
-        Assert.Equal(Core.Tessellation.CreaseRole.Flat, FoldRoles.RoleOf(0.4 * Math.PI / 180, tol));
-        Assert.Equal(Core.Tessellation.CreaseRole.Flat, FoldRoles.RoleOf(-0.4 * Math.PI / 180, tol));
-        Assert.Equal(Core.Tessellation.CreaseRole.Flat, FoldRoles.RoleOf(double.NaN, tol));
+        Assert.Equal(Core.Model.CreaseRole.Mountain, FoldRoles.RoleOf(0.6 * Math.PI / 180, tol));
+        Assert.Equal(Core.Model.CreaseRole.Valley, FoldRoles.RoleOf(-0.6 * Math.PI / 180, tol));
+        Assert.Equal(Core.Model.CreaseRole.Flat, FoldRoles.RoleOf(0.4 * Math.PI / 180, tol));
+        Assert.Equal(Core.Model.CreaseRole.Flat, FoldRoles.RoleOf(-0.4 * Math.PI / 180, tol));
+        Assert.Equal(Core.Model.CreaseRole.Flat, FoldRoles.RoleOf(double.NaN, tol));
     }
 
     private static int PathsIn(string svg, string lineClass)

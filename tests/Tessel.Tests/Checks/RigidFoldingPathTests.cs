@@ -1,5 +1,6 @@
 using Tessel.Core.Checks;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Miura;
 

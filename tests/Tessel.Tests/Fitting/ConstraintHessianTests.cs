@@ -1,6 +1,6 @@
 using Tessel.Core.Fitting;
-using Tessel.Core.Fitting.Sparse;
-using Tessel.Tests.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
+using Tessel.Tests.LinearAlgebra;
 
 namespace Tessel.Tests.Fitting;
 

@@ -1,5 +1,5 @@
 using Tessel.Core.Fitting;
-using Tessel.Core.Fitting.Sparse;
+using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Miura;

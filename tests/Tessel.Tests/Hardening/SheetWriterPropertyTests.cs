@@ -2,6 +2,7 @@ using System.Xml.Linq;
 using FsCheck;
 using FsCheck.Fluent;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Output.Sheets;
 using Tessel.Tests.Sheets;

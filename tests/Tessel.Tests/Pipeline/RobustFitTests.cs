@@ -1,6 +1,7 @@
 using Tessel.Core.Fitting;
 using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;

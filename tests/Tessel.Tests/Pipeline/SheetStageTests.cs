@@ -1,4 +1,5 @@
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Sheets;
 using Tessel.Core.Tessellation;

@@ -1,3 +1,4 @@
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 using Tessel.Output.Report;
 

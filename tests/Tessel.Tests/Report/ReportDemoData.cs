@@ -1,4 +1,5 @@
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Miura;

@@ -1,5 +1,6 @@
 using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
+using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
 using Tessel.Core.Sheets;
 

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Output.Sheets;
 

@@ -1,3 +1,4 @@
+using Tessel.Core.Model;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Miura;
 using Tessel.Core.Unfolding;

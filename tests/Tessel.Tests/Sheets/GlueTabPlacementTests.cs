@@ -1,5 +1,6 @@
 using NetTopologySuite.Geometries;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Unfolding;

@@ -1,3 +1,4 @@
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Core.Tessellation;
 

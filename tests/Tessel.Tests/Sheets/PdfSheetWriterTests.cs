@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Text;
 using System.Text.RegularExpressions;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Output.Sheets;
 

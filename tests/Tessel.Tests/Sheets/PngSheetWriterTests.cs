@@ -1,6 +1,7 @@
 using System.Buffers.Binary;
 using System.Text;
 using SkiaSharp;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Output.Sheets;
 

@@ -1,5 +1,6 @@
 using NetTopologySuite.Geometries;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Core.Unfolding;
 
@@ -95,7 +96,7 @@ public class SheetLayoutTests
         // plus the seam edges (cut apart, drawn as tab folds and cut edges) give the pattern's creases.
         double onSheets = CardLayout.Sheets.SelectMany(s => s.Lines)
             .Where(l => l.Class is LineClass.Mountain or LineClass.Valley).Sum(Length);
-        double seams = CardLayout.Seams.Where(s => s.Role is Core.Tessellation.CreaseRole.Mountain or Core.Tessellation.CreaseRole.Valley).Sum(s => s.LengthMm);
+        double seams = CardLayout.Seams.Where(s => s.Role is Core.Model.CreaseRole.Mountain or Core.Model.CreaseRole.Valley).Sum(s => s.LengthMm);
         double expected = FlatMiura.CreaseLength(Miura) * 1000 / 50;
         Assert.Equal(expected, onSheets + seams, 6);
         // Card has no root offset, so each tab fold lies on its seam edge, short of both ends by at least the
@@ -374,7 +375,7 @@ public class SheetLayoutTests
             for (int e = 0; e < mesh.EdgeCount; e++)
             {
                 if (!mesh.IsInterior(e) || !inPart.Contains(mesh.EdgeFaceLeft[e]) || !inPart.Contains(mesh.EdgeFaceRight[e])) continue;
-                if (Miura.Role(e) is not (Core.Tessellation.CreaseRole.Mountain or Core.Tessellation.CreaseRole.Valley)) continue;
+                if (Miura.Role(e) is not (Core.Model.CreaseRole.Mountain or Core.Model.CreaseRole.Valley)) continue;
                 var (v0, v1) = Miura.Edge(e);
                 var d = part.VertexPositions[Array.BinarySearch(part.Vertices, v1)] - part.VertexPositions[Array.BinarySearch(part.Vertices, v0)];
                 int deg = (int)Math.Round((Math.Atan2(d.Y, d.X) * 180 / Math.PI + 360) % 180) % 180;

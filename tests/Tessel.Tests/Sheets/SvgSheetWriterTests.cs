@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Xml.Linq;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Output.Sheets;
 

@@ -1,4 +1,5 @@
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 
 namespace Tessel.Tests.Sheets;

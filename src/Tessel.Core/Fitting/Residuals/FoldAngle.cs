@@ -1,10 +1,11 @@
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 
 namespace Tessel.Core.Fitting.Residuals;
 
 /// <summary>Signed fold (dihedral) angle of the hinge a-&gt;b between the triangle (a, b, l) on its left
 /// and (b, a, r) on its right, in (-pi, pi): 0 when flat, positive for a mountain (the same convention
-/// as <see cref="Tessellation.CreaseMesh.FoldAngle"/>).</summary>
+/// as <see cref="Tessel.Core.Model.CreaseMesh.FoldAngle"/>).</summary>
 public static class FoldAngle
 {
     /// <summary>The angle; <paramref name="grad"/> (12 numbers) receives d/da, d/db, d/dl, d/dr.</summary>

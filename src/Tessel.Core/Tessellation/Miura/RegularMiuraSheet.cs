@@ -1,4 +1,5 @@
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 
 namespace Tessel.Core.Tessellation.Miura;
 

@@ -1,5 +1,6 @@
 using Tessel.Core.Fitting;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Targets;
 using Tessel.Core.Targets.Meshes;
 using Tessel.Core.Tessellation;

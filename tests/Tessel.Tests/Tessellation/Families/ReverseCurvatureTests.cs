@@ -1,4 +1,5 @@
 using Tessel.Core.Fitting;
+using Tessel.Core.Model;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Miura;

@@ -1,6 +1,7 @@
 using Tessel.Core.Fitting;
 using Tessel.Core.Fitting.Residuals;
 using Tessel.Core.Geometry;
+using Tessel.Core.Model;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 using Tessel.Core.Tessellation.Yoshimura;
