@@ -96,7 +96,7 @@ public static class ContinuationFitter
 
     /// <summary>Edges of the fitted mesh shorter than the minimum, among those whose draped length reaches it
     /// (a crease already shorter in the drape is held only at its draped length, as in the fit's bound).</summary>
-    private static int ShortEdges(Tessel.Core.Model.CreaseMesh fitted, Tessel.Core.Model.CreaseMesh draped, double minimum)
+    private static int ShortEdges(CreaseMesh fitted, CreaseMesh draped, double minimum)
     {
         int count = 0;
         for (int e = 0; e < fitted.EdgeCount; e++)
@@ -167,7 +167,7 @@ public static class ContinuationFitter
         return last with { History = history, Adjustments = adjustments, Converged = last.Converged && share == 1 };
     }
 
-    private static bool SameTopology(Tessel.Core.Model.CreaseMesh a, Tessel.Core.Model.CreaseMesh b)
+    private static bool SameTopology(CreaseMesh a, CreaseMesh b)
     {
         if (a.VertexCount != b.VertexCount || a.FaceCount != b.FaceCount || a.EdgeCount != b.EdgeCount) return false;
         for (int f = 0; f < a.FaceCount; f++)

@@ -45,8 +45,47 @@ public static class EpsilonConstraintFitter
 internal sealed class FitRun
 {
     private const string Feasibility = "feasibility", Optimality = "epsilon-constraint", Projection = "projection";
+    /// <summary>Weight of the shape rows in phase 1a: faint, so the constraints dominate, but enough to
+    /// give the directions the constraints leave free some curvature (a well-conditioned step).</summary>
     private const double FeasibilityPull = 1e-3;
+    /// <summary>Phase 2 hands over to the final projection once the violation is below this (rad): Newton
+    /// on the constraints converges quadratically from there.</summary>
     private const double HandOver = 1e-6;
+    /// <summary>Linear solves kept back from phase 1 and 2 for the final projection.</summary>
+    private const int ProjectionReserve = 15;
+    /// <summary>Step cap of phase 1a: it only needs to come near the constraint set.</summary>
+    private const int PulledFeasibilitySteps = 15;
+    /// <summary>Step cap of phase 1b: sheet-wide modes of the developability residual are weakly determined,
+    /// so landing from the pulled point can take tens of steps on large sheets.</summary>
+    private const int FeasibilityProjectionSteps = 60;
+    /// <summary>Phase 1a stops when a step lowers the merit by less than this share: it is a warm start.</summary>
+    private const double PulledFeasibilityStall = 1e-3;
+    /// <summary>Default stall share of a step's merit decrease (below it, steps no longer help).</summary>
+    private const double DefaultStall = 1e-12;
+    /// <summary>Linear solves per augmented-Lagrangian round between multiplier updates.</summary>
+    private const int RoundSteps = 10;
+    /// <summary>The penalty grows when a round does not cut the violation to this share of the last
+    /// (the usual rule of method-of-multiplier codes, e.g. Nocedal &amp; Wright 2006, Framework 17.3).</summary>
+    private const double SufficientViolationCut = 0.25;
+    /// <summary>Factor by which the penalty grows, and its ceiling (beyond it the normal matrix loses the
+    /// objective's digits in double precision).</summary>
+    private const double PenaltyGrowth = 10, MaxPenalty = 1e12;
+    /// <summary>Levenberg-Marquardt damping at the start of phase 1a and phase 2 (relative to the
+    /// diagonal), of phase 1b, and of the final projection: smaller where the step should be pure
+    /// Gauss-Newton on the constraints.</summary>
+    private const double StartDamping = 1e-4, FeasibilityProjectionDamping = 1e-8, FinalProjectionDamping = 1e-10;
+    /// <summary>Damping shrinks by this factor after an accepted step and grows by the other after a rejected
+    /// one (Madsen, Nielsen &amp; Tingleff 2004, Methods for non-linear least squares problems, sec. 3.2).</summary>
+    private const double DampingShrink = 3, DampingGrowth = 4;
+    /// <summary>Damping floor and ceiling; above the ceiling steps are negligible and the phase has stalled.</summary>
+    private const double MinDamping = 1e-12, MaxDamping = 1e12;
+    /// <summary>Absolute damping floor as a share of the largest matrix entry, so that rows with no
+    /// curvature still get a positive diagonal.</summary>
+    private const double RelativeDampingFloor = 1e-9;
+    /// <summary>Rejected steps in a row after which a phase counts as stalled.</summary>
+    private const int MaxRejectionsInRow = 12;
+    /// <summary>The final projection aims a decade below the tolerance, so that the result holds it with margin.</summary>
+    private const double FinalProjectionMargin = 0.1;
 
     private readonly GeneratedPattern _pattern;
     private readonly FitRows _rows;
@@ -63,7 +102,7 @@ internal sealed class FitRun
     private double _solveSeconds;
     private long _linearIterations;
     private string _method = "none";
-    private double _damping = 1e-4;
+    private double _damping = StartDamping;
 
     public FitRun(GeneratedPattern pattern, FitRows rows, FitSettings settings, ISpdSolver solver, double[] start)
     {
@@ -80,7 +119,6 @@ internal sealed class FitRun
     public FitResult Run()
     {
         int budget = _s.MaxIterations;
-        const int projectionReserve = 15;
         string stop;
         bool optimal = false;
 
@@ -90,22 +128,22 @@ internal sealed class FitRun
         // phase 1b pure Gauss-Newton on the violation (lands on it). On large sheets the pulled point can
         // sit away from the constraints along slow, sheet-wide modes: 1b then needs tens of steps (measured:
         // 28 at 40 x 40 cells, 2-5 up to 24 x 24) and stops as soon as it lands.
-        Minimise(Feasibility, Math.Max(1, Math.Min(15, budget - projectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: 1e-3);
-        Minimise(Projection, Math.Max(1, Math.Min(60, budget - projectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: 1e-8);
+        Minimise(Feasibility, Math.Max(1, Math.Min(PulledFeasibilitySteps, budget - ProjectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: PulledFeasibilityStall);
+        Minimise(Projection, Math.Max(1, Math.Min(FeasibilityProjectionSteps, budget - ProjectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: FeasibilityProjectionDamping);
 
         // Phase 2: epsilon-constraint problem by augmented Lagrangian rounds.
         Evaluate(_x);
         double objective = Objective(out _), previousViolation = MaxViolation();
         stop = "iteration limit reached in phase 2";
         double lastDecrease = double.NaN;
-        while (_solves < budget - projectionReserve)
+        while (_solves < budget - ProjectionReserve)
         {
-            int roundBudget = Math.Min(10, budget - projectionReserve - _solves);
+            int roundBudget = Math.Min(RoundSteps, budget - ProjectionReserve - _solves);
             Minimise(Optimality, roundBudget, () => false, out bool stalled);
             Evaluate(_x);
             double violation = MaxViolation();
             UpdateMultipliers();
-            if (violation > 0.25 * previousViolation) _penalty = Math.Min(_penalty * 10, 1e12);
+            if (violation > SufficientViolationCut * previousViolation) _penalty = Math.Min(_penalty * PenaltyGrowth, MaxPenalty);
             double next = Objective(out _);
             lastDecrease = Math.Abs(objective - next) / Math.Max(Math.Abs(next), 1e-300);
             bool small = lastDecrease <= _s.RelativeObjectiveTolerance;
@@ -120,7 +158,7 @@ internal sealed class FitRun
         }
 
         // Final projection onto the constraints (Gauss-Newton on the violation, tiny damping).
-        Minimise(Projection, budget - _solves, () => MaxViolation() <= 0.1 * tolerance, out _, initialDamping: 1e-10);
+        Minimise(Projection, budget - _solves, () => MaxViolation() <= FinalProjectionMargin * tolerance, out _, initialDamping: FinalProjectionDamping);
         Evaluate(_x);
         var residuals = Residuals();
         bool buildable = residuals.MaxConstraintViolation <= tolerance;
@@ -148,7 +186,7 @@ internal sealed class FitRun
     /// <summary>Levenberg-Marquardt on the phase's merit function until <paramref name="done"/> holds,
     /// the budget is spent or steps stop helping (<paramref name="stalled"/>). Each step is followed by a
     /// second-order correction with the same factor when that lowers the merit further.</summary>
-    private void Minimise(string phase, int maxSolves, Func<bool> done, out bool stalled, double initialDamping = 1e-4, double stallDecrease = 1e-12)
+    private void Minimise(string phase, int maxSolves, Func<bool> done, out bool stalled, double initialDamping = StartDamping, double stallDecrease = DefaultStall)
     {
         stalled = false;
         double damping = phase == Optimality ? _damping : initialDamping;
@@ -173,13 +211,13 @@ internal sealed class FitRun
                 _system.Assemble(_weight, _residual, _grad, rhs);
                 if (phase == Optimality) AddConstraintCurvature();
                 // Damping touches only the diagonal, so only the diagonal is kept to undo it (a copy of
-                // the whole matrix was 55 MB at 100 x 100 cells).
+                // the whole matrix would take 55 MB at 100 x 100 cells).
                 _system.CopyDiagonal(undampedDiagonal);
                 maxEntry = _system.MaxAbsEntry();
                 assembled = true;
             }
             else _system.SetDiagonal(undampedDiagonal);
-            _system.Damp(damping, 1e-9 * maxEntry + 1e-300);
+            _system.Damp(damping, RelativeDampingFloor * maxEntry + 1e-300);
             Array.Clear(step);
             var stats = TimedSolve(rhs, step, again: false);
             used++;
@@ -228,7 +266,7 @@ internal sealed class FitRun
                 s.Trial = trial;
                 double decrease = (merit - trialMerit) / Math.Max(merit, 1e-300);
                 merit = trialMerit;
-                damping = Math.Max(damping / 3, 1e-12);
+                damping = Math.Max(damping / DampingShrink, MinDamping);
                 rejectedInRow = 0;
                 assembled = false;
                 Record(phase, true);
@@ -240,10 +278,10 @@ internal sealed class FitRun
             {
                 Evaluate(_x); // re-evaluated rather than restored from a copy of every row gradient (55 MB at 100 x 100)
                 Merit(phase);
-                damping *= 4;
+                damping *= DampingGrowth;
                 if (phase == Optimality) _damping = damping;
                 Record(phase, false);
-                if (++rejectedInRow >= 12 || damping > 1e12) { stalled = true; return; }
+                if (++rejectedInRow >= MaxRejectionsInRow || damping > MaxDamping) { stalled = true; return; }
             }
         }
     }

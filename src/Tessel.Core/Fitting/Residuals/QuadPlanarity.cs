@@ -5,7 +5,7 @@ namespace Tessel.Core.Fitting.Residuals;
 /// <summary>Planarity of a quadrilateral facet as the scaled triple product
 /// P = (x2-x1) . ((x3-x1) x (x4-x1)) / l^3, l = mean of the four side lengths (dimensionless, 0 when
 /// planar). Chosen over the facet angle sum, whose gradient vanishes at planarity
-/// (shared/reference/geometry.md section 1).</summary>
+/// (docs/reference/geometry.md section 1).</summary>
 public static class QuadPlanarity
 {
     /// <summary>P and its gradient (12 numbers: d/dx1 .. d/dx4), l's dependence on the corners included.</summary>
