@@ -30,8 +30,8 @@ public sealed record ChecksStageResult(
     FlatStrainResult Strain,
     int ShortEdgeCount,
     double ShortestEdgeMm,
-    EnvelopeCurvature? Envelope = null,
-    FoldBoundCount? FoldBounds = null)
+    EnvelopeCurvature? Envelope,
+    FoldBoundCount FoldBounds)
 {
     /// <summary>Panel pairs that collide at the fitted state or at any kept state of the path.</summary>
     public int CollisionCount => FittedCollisions.Count + PathCollisions.Sum(f => f.Collisions.Count);
