@@ -127,7 +127,7 @@ public static class RobustnessBenchmark
             var job = Load(target, family, cells, seed, assets);
             var result = BuildPipeline.Run(job, Tessel.Output.IO.HeightMapImage.Decode, ProgressReporter.Silent);
             // Mapped to files too, so that a writer's internal error counts as one.
-            BuildRunner.Map(result, job, ProgressReporter.Silent);
+            BuildRunner.Map(result, ProgressReporter.Silent);
             var fit = result.Fit.Fit;
             string status = result.Problem is null ? "buildable" : "unbuildable";
             return new Outcome(name, target.Name, family, cells, seed, status, fit.Converged, clock.Elapsed.TotalSeconds,

@@ -12,7 +12,7 @@ namespace Tessel.Output.Build;
 /// <param name="Folder">Absolute output folder.</param>
 /// <param name="Files">Relative path and size of every file written, summary.json last.</param>
 /// <param name="Problem">Null when the build is complete; otherwise the one-line reason it stopped
-/// short (the fit did not converge and the job does not accept that), with the files written so far.</param>
+/// short (<see cref="PipelineResult.Problem"/>), with the files written so far.</param>
 public sealed record BuildResult(string Folder, IReadOnlyList<(string Path, long Bytes)> Files, string? Problem = null);
 
 /// <summary>Runs the pipeline for one job and writes its files into one output folder.</summary>
@@ -37,12 +37,13 @@ public static class BuildRunner
 
     /// <summary>Runs the pipeline and gathers its files and figures, without writing anything.</summary>
     public static BuildOutput Collect(Job job, ProgressReporter progress) =>
-        Map(BuildPipeline.Run(job, HeightMapImage.Decode, progress), job, progress);
+        Map(BuildPipeline.Run(job, HeightMapImage.Decode, progress), progress);
 
-    /// <summary>Files and figures of a pipeline result. <paramref name="job"/> is the job as given (its
-    /// scale may be "auto"); the later stages' figures use the result's resolved job.</summary>
-    public static BuildOutput Map(PipelineResult result, Job job, ProgressReporter progress)
+    /// <summary>Files and figures of a pipeline result, in the order the summary lists them.</summary>
+    public static BuildOutput Map(PipelineResult result, ProgressReporter progress)
     {
+        var job = result.Job;
+        progress.Stage("files", "drawing the target, model and sheet files");
         var output = new BuildOutput();
         output.AddFigure("job", "seed", (long)job.Seed);
         output.AddFigure("job", "family", job.Tessellation.Family);
