@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using System.Text;
+using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
 using Tessel.Core.Pipeline;
 using Tessel.Output.Build;
@@ -124,25 +125,29 @@ public static class RobustnessBenchmark
         {
             if (FitOnly) return FitOnlyBuild(target, family, cells, seed, assets, name, clock);
             var job = Load(target, family, cells, seed, assets);
-            var output = BuildRunner.Collect(job, ProgressReporter.Silent);
-            double Fig(string n) => output.Figures.FirstOrDefault(f => f.Section == "fit" && f.Name == n).Value is double d ? d : double.NaN;
-            long Steps() => output.Figures.FirstOrDefault(f => f.Section == "fit" && f.Name == "steps").Value is long l ? l : 0;
-            bool finished = output.Figures.FirstOrDefault(f => f.Section == "fit" && f.Name == "finished").Value is true
-                || output.Figures.FirstOrDefault(f => f.Section == "fit" && f.Name == "converged").Value is true;
-            string status = output.Problem is null ? "buildable" : "unbuildable";
-            return new Outcome(name, target.Name, family, cells, seed, status, finished, clock.Elapsed.TotalSeconds,
-                Fig("shapeRmsM") * 1e3, MaxResidual(output), (int)Steps(), output.Problem ?? "");
+            var result = BuildPipeline.Run(job, Tessel.Output.IO.HeightMapImage.Decode, ProgressReporter.Silent);
+            // Mapped to files too, so that a writer's internal error counts as one.
+            BuildRunner.Map(result, ProgressReporter.Silent);
+            var fit = result.Fit.Fit;
+            string status = result.Problem is null ? "buildable" : "unbuildable";
+            return new Outcome(name, target.Name, family, cells, seed, status, fit.Converged, clock.Elapsed.TotalSeconds,
+                fit.Shape.Rms * 1e3, MaxResidual(result), fit.History.Count, result.Problem ?? "");
         }
         catch (JobError e) { return new Outcome(name, target.Name, family, cells, seed, "refused", false, clock.Elapsed.TotalSeconds, double.NaN, double.NaN, 0, e.Message); }
         catch (FitBreakdownError e) { return new Outcome(name, target.Name, family, cells, seed, "breakdown", false, clock.Elapsed.TotalSeconds, double.NaN, double.NaN, 0, e.Message); }
         catch (Exception e) { return new Outcome(name, target.Name, family, cells, seed, "INTERNAL", false, clock.Elapsed.TotalSeconds, double.NaN, double.NaN, 0, $"{e.GetType().Name}: {e.Message} {e.StackTrace?.Split('\n').FirstOrDefault()?.Trim()}"); }
     }
 
-    private static double MaxResidual(BuildOutput output)
+    /// <summary>The largest residual the summary reports for the fit: developability excess, Kawasaki,
+    /// planarity, and bound violations including folds of the fitted geometry outside the fold-angle bounds.</summary>
+    private static double MaxResidual(PipelineResult result)
     {
+        var (fit, bounds) = (result.Fit.Fit, result.Job.Fitting.Bounds);
+        var folds = FoldRoles.Bounds(fit.Mesh, Math.Max(bounds.MinFoldAngleDeg, 0), bounds.MaxFoldAngleDeg);
         double m = 0;
-        foreach (var n in new[] { "maxDevelopabilityExcessRad", "maxKawasakiRad", "maxPlanarityScaled", "maxBoundViolation" })
-            if (output.Figures.FirstOrDefault(f => f.Section == "fit" && f.Name == n).Value is double d) m = Math.Max(m, d);
+        foreach (double d in new[] { fit.Residuals.MaxDevelopabilityExcess, fit.Residuals.MaxKawasaki, fit.Residuals.MaxPlanarity,
+                     Math.Max(fit.Residuals.MaxBoundViolation, folds.MaxViolationRad) })
+            m = Math.Max(m, d);
         return m;
     }
 

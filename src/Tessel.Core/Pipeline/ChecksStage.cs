@@ -2,12 +2,24 @@ using Tessel.Core.Checks;
 using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Jobs;
 using Tessel.Core.Model;
-using Tessel.Core.Tessellation;
-using Tessel.Core.Unfolding;
 
 namespace Tessel.Core.Pipeline;
 
-/// <summary>Everything that says whether the fitted pattern can be built, with its flat layout.</summary>
+/// <summary>What the checks of the folded model found: how it moves, whether it folds flat without
+/// collisions, and how its folds and creases meet the job's bounds.</summary>
+public sealed record FoldedModelChecks(
+    RigidityResult Rigidity,
+    FoldingPathResult Path,
+    CollisionResult FittedCollisions,
+    IReadOnlyList<PathCollisionFrame> PathCollisions,
+    IReadOnlyList<FoldAngleRow> FoldAngles,
+    int ShortEdgeCount,
+    double ShortestEdgeMm,
+    EnvelopeCurvature? Envelope,
+    FoldBoundCount FoldBounds);
+
+/// <summary>Everything that says whether the fitted pattern can be built, with the flat layout whose
+/// strain was measured.</summary>
 public sealed record ChecksStageResult(
     FlatPattern Flat,
     RigidityResult Rigidity,
@@ -18,15 +30,17 @@ public sealed record ChecksStageResult(
     FlatStrainResult Strain,
     int ShortEdgeCount,
     double ShortestEdgeMm,
-    EnvelopeCurvature? Envelope = null,
-    FoldBoundCount? FoldBounds = null)
+    EnvelopeCurvature? Envelope,
+    FoldBoundCount FoldBounds)
 {
     /// <summary>Panel pairs that collide at the fitted state or at any kept state of the path.</summary>
     public int CollisionCount => FittedCollisions.Count + PathCollisions.Sum(f => f.Collisions.Count);
 }
 
-/// <summary>Fourth and fifth stages: develop the fitted mesh to the plane, then prove it folds:
-/// degrees of freedom, rigid folding path, collisions, fold-angle table and flat-layout strain.</summary>
+/// <summary>Fourth stage: proves the fitted pattern folds, in two steps around the unfolding: <see cref="FoldedModel"/>
+/// (degrees of freedom, rigid folding path, collisions, fold-angle table, fold and crease bounds,
+/// envelope curvature) needs only the folded mesh; <see cref="FlatLayout"/> (strain of every facet when
+/// laid flat) needs the unfolded pattern.</summary>
 public static class ChecksStage
 {
     private static bool IsFlat(CreaseMesh mesh)
@@ -44,27 +58,23 @@ public static class ChecksStage
             TimeSpan.Zero);
     }
 
-    /// <summary>Runs one step, turning a numerical breakdown inside it into a one-line error naming the step.</summary>
+    /// <summary>Runs one check, turning a numerical breakdown inside it into a one-line error naming the check.</summary>
     private static T Guard<T>(string step, Func<T> run)
     {
         try { return run(); }
         catch (Exception e) when (e is NotPositiveDefiniteException or ArithmeticException)
         {
-            throw new StageBreakdownError(step.StartsWith("unfold", StringComparison.Ordinal) ? "unfold" : "checks",
+            throw new StageBreakdownError("checks",
                 $"{step} broke down on the fitted model: {e.Message}; the fit left a degenerate or singular model, try other cell counts or cellSize", e);
         }
     }
 
-    /// <param name="envelope">The family's envelope builder (<see cref="GeneratedPattern.Envelope"/>), or null.</param>
-    /// <param name="unfolded">The fitted mesh already developed (as for an automatic scale), or null.</param>
-    public static ChecksStageResult Run(Job job, CreaseMesh fitted, double strainLimit, ProgressReporter progress,
-        Func<CreaseMesh, CreaseMesh>? envelope = null, FlatPattern? unfolded = null)
+    /// <summary>The checks that need only the folded model, at the job's (resolved) scale.</summary>
+    /// <param name="envelope">The family's envelope builder (<see cref="Tessellation.GeneratedPattern.Envelope"/>), or null.</param>
+    /// <exception cref="StageBreakdownError">A check's linear algebra broke down on the fitted model.</exception>
+    public static FoldedModelChecks FoldedModel(Job job, CreaseMesh fitted, ProgressReporter progress,
+        Func<CreaseMesh, CreaseMesh>? envelope = null)
     {
-        progress.Stage("unfold", "developing the fitted pattern to the plane");
-        var flat = unfolded ?? Guard("unfolding", () => MeshUnfolder.Unfold(fitted, new AutoSolver()));
-        double maxEdgeStrain = flat.EdgeStrain.Length == 0 ? 0 : flat.EdgeStrain.Max(Math.Abs);
-        progress.Step($"largest edge length error {maxEdgeStrain * 100:0.####} %");
-
         progress.Stage("checks", "degrees of freedom");
         var rigidity = Guard("the degree-of-freedom check", () => RigidityAnalysis.DegreesOfFreedom(fitted));
         progress.Step($"DOF {rigidity.DegreesOfFreedom} (rank {rigidity.Rank} of {rigidity.Unknowns}, gap {rigidity.GapRatio:0.##E+0}, {rigidity.Method})");
@@ -80,7 +90,6 @@ public static class ChecksStage
         var pathCollisions = PanelCollisions.AlongPath(fitted, path);
         var foldAngles = FoldAngleTable.Build(fitted, job.Fabrication.Scale);
         var foldBounds = FoldRoles.Bounds(fitted, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg);
-        var strain = FlatLayoutStrain.Measure(flat, strainLimit);
 
         double minMm = job.Fitting.Bounds.MinEdgeLengthMm, shortest = double.PositiveInfinity;
         int shortCount = 0;
@@ -92,7 +101,7 @@ public static class ChecksStage
             shortest = Math.Min(shortest, mm);
             if (mm < minMm) shortCount++;
         }
-        progress.Step($"collisions {fittedCollisions.Count + pathCollisions.Sum(f => f.Collisions.Count)}, max flat strain {strain.MaxStrain * 100:0.####} % (limit {strainLimit * 100:0.##} %)");
+        progress.Step($"collisions {fittedCollisions.Count + pathCollisions.Sum(f => f.Collisions.Count)}");
         EnvelopeCurvature? curvature = null;
         if (envelope is not null)
         {
@@ -100,6 +109,16 @@ public static class ChecksStage
             if (curvature is not null)
                 progress.Step($"envelope angle defects {curvature.MinDefect:0.###E+0} to {curvature.MaxDefect:0.###E+0} rad, positive at {curvature.Positive} of {curvature.Interior}");
         }
-        return new ChecksStageResult(flat, rigidity, path, fittedCollisions, pathCollisions, foldAngles, strain, shortCount, shortest, curvature, foldBounds);
+        return new FoldedModelChecks(rigidity, path, fittedCollisions, pathCollisions, foldAngles, shortCount, shortest, curvature, foldBounds);
+    }
+
+    /// <summary>The flat-layout check on the unfolded pattern, joined with the folded-model checks.</summary>
+    /// <param name="strainLimit">The material's strain limit (<see cref="Sheets.Material.StrainLimit"/>).</param>
+    public static ChecksStageResult FlatLayout(FoldedModelChecks folded, FlatPattern flat, double strainLimit, ProgressReporter progress)
+    {
+        var strain = FlatLayoutStrain.Measure(flat, strainLimit);
+        progress.Step($"max flat strain {strain.MaxStrain * 100:0.####} % (limit {strainLimit * 100:0.##} %)");
+        return new ChecksStageResult(flat, folded.Rigidity, folded.Path, folded.FittedCollisions, folded.PathCollisions,
+            folded.FoldAngles, strain, folded.ShortEdgeCount, folded.ShortestEdgeMm, folded.Envelope, folded.FoldBounds);
     }
 }

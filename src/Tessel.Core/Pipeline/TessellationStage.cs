@@ -5,15 +5,14 @@ using Tessel.Core.Tessellation;
 
 namespace Tessel.Core.Pipeline;
 
-/// <summary>The crease pattern a family generated on the target, or why there is none, and whether the
-/// family suits the target's curvature.</summary>
-/// <param name="Pattern">Draped initial state with the family's constraints; null when the family
-/// cannot be built by this version (see <paramref name="Unavailable"/>).</param>
+/// <summary>The crease pattern a family generated on the target, and whether the family suits the
+/// target's curvature.</summary>
+/// <param name="Pattern">Draped initial state with the family's constraints.</param>
 /// <param name="Advice">Plain-words verdict on pairing this family with this target.</param>
-public sealed record TessellationStageResult(GeneratedPattern? Pattern, string? Unavailable, FamilyAdvice Advice)
+public sealed record TessellationStageResult(GeneratedPattern Pattern, FamilyAdvice Advice)
 {
     /// <summary>Drapes the same family with the same parameters on another surface (the fit's continuation
-    /// starts from the target's best-fit plane); null when there is no pattern.</summary>
+    /// starts from the target's best-fit plane).</summary>
     public Func<ITargetSurface, GeneratedPattern>? DrapeOn { get; init; }
     /// <summary>Whether the family can bend as tightly as the target at the job's cells (judged before
     /// the fit), and the change that would let it; null where no estimate was made.</summary>
@@ -31,13 +30,6 @@ public static class TessellationStage
         var curvature = CurvatureFigures.Sample(target);
         var advice = FamilyAdvice.For(spec.Family, target, curvature);
         if (!advice.Suits) progress.Step(advice.Message);
-        // The job loader accepts every catalogued family; the generators name those this version builds.
-        if (!FamilyGenerators.Names.Contains(spec.Family))
-        {
-            string why = $"the {spec.Family} family is not built by this version yet; only the target was built (use free-triangulated for domes or yoshimura for vaults)";
-            progress.Step(why);
-            return new TessellationStageResult(null, why, advice);
-        }
         Units.TryMetresPer(job.Target.Units, out double metres);
         var p = new FamilyParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
             spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
@@ -54,7 +46,7 @@ public static class TessellationStage
             if (pieces > 1)
                 throw new JobError(spec.CellsX is null && spec.CellSize is not null ? "tessellation.cellSize" : "tessellation.cellsX",
                     $"the {spec.Family} pattern falls into {pieces} pieces on this footprint (facets meet only at corners where the footprint narrows); use smaller cells (more cellsX and cellsY) or a wider footprint");
-            return new TessellationStageResult(pattern, null, advice) { Follow = follow, DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
+            return new TessellationStageResult(pattern, advice) { Follow = follow, DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)
         {

@@ -1,11 +1,6 @@
-using Tessel.Core.Checks;
 using Tessel.Core.Jobs;
-using Tessel.Core.Model;
 using Tessel.Core.Pipeline;
-using Tessel.Core.Sheets;
-using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
-using Tessel.Core.Unfolding;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
 using Tessel.Output.Report;
@@ -17,15 +12,14 @@ namespace Tessel.Output.Build;
 /// <param name="Folder">Absolute output folder.</param>
 /// <param name="Files">Relative path and size of every file written, summary.json last.</param>
 /// <param name="Problem">Null when the build is complete; otherwise the one-line reason it stopped
-/// short (the fit did not converge and the job does not accept that), with the files written so far.</param>
+/// short (<see cref="PipelineResult.Problem"/>), with the files written so far.</param>
 public sealed record BuildResult(string Folder, IReadOnlyList<(string Path, long Bytes)> Files, string? Problem = null);
 
 /// <summary>Runs the pipeline for one job and writes its files into one output folder.</summary>
-/// <remarks>Every stage adds files and figures to a <see cref="BuildOutput"/>; nothing touches the disk
-/// until all stages have succeeded. Then <see cref="OutputFolder"/> writes them into a staging folder
-/// and swaps it for the output folder whole, never writing outside it.
-/// To add a stage: compute it after the ones it needs inside <see cref="Collect"/> and add its files
-/// and figures to the <see cref="BuildOutput"/>.</remarks>
+/// <remarks><see cref="BuildPipeline"/> computes every stage; this class only turns its result into
+/// files and figures in a <see cref="BuildOutput"/>, in the order the summary lists them. Nothing touches
+/// the disk until the whole result is mapped. Then <see cref="OutputFolder"/> writes the files into a
+/// staging folder and swaps it for the output folder whole, never writing outside it.</remarks>
 public static class BuildRunner
 {
     /// <summary>Name of the summary file, always written.</summary>
@@ -41,112 +35,62 @@ public static class BuildRunner
         return Write(output, job, outputFolder, progress) with { Problem = output.Problem };
     }
 
-    /// <summary>Runs every stage and gathers the files and figures, without writing anything.</summary>
-    public static BuildOutput Collect(Job job, ProgressReporter progress)
+    /// <summary>Runs the pipeline and gathers its files and figures, without writing anything.</summary>
+    public static BuildOutput Collect(Job job, ProgressReporter progress) =>
+        Map(BuildPipeline.Run(job, HeightMapImage.Decode, progress), progress);
+
+    /// <summary>Files and figures of a pipeline result, in the order the summary lists them.</summary>
+    public static BuildOutput Map(PipelineResult result, ProgressReporter progress)
     {
+        var job = result.Job;
+        progress.Stage("files", "drawing the target, model and sheet files");
         var output = new BuildOutput();
         output.AddFigure("job", "seed", (long)job.Seed);
         output.AddFigure("job", "family", job.Tessellation.Family);
         if (job.Fabrication.AutoScale) output.AddFigure("job", "scale", "auto");
         else output.AddFigure("job", "scale", job.Fabrication.Scale);
-
-        var targetStage = TargetStage.Run(job, HeightMapImage.Decode, progress);
-        AddTarget(output, job, targetStage, progress);
-        AddModel(output, job, targetStage.Target, progress);
+        AddTarget(output, job, result.Target, progress);
+        AddModel(output, result, progress);
         return output;
     }
 
-    /// <summary>Tessellation, fit, checks, unfolding, sheets and report. Stops after the fit, without
-    /// sheets, when the fit did not converge and the job does not accept that.</summary>
-    private static void AddModel(BuildOutput output, Job job, ITargetSurface target, ProgressReporter progress)
+    /// <summary>Tessellation, fit, checks, sheets and report. A build stopped after the fit has no
+    /// checks, sheets, warnings or report: its problem says why.</summary>
+    private static void AddModel(BuildOutput output, PipelineResult result, ProgressReporter progress)
     {
-        var tessellation = TessellationStage.Run(job, target, progress);
-        output.AddFigure("tessellation", "available", tessellation.Pattern is not null);
+        var (job, tessellation, fit) = (result.Job, result.Tessellation, result.Fit);
+        // Always true (every family the loader accepts has a generator); kept so summary.json keeps its fields.
+        output.AddFigure("tessellation", "available", true);
         output.AddFigure("tessellation", "familySuitsTarget", tessellation.Advice.Suits);
         output.AddFigure("tessellation", "advice", tessellation.Advice.Message);
         if (tessellation.Follow is { CanFollow: false, Message: { } cannotFollow }) output.AddFigure("tessellation", "cannotFollow", cannotFollow);
-        if (tessellation.Pattern is null)
-        {
-            output.AddFigure("tessellation", "note", tessellation.Unavailable!);
-            return;
-        }
-        // The size is known exactly now (a mesh target without a footprint gets its cell counts only here).
-        double raster = job.Outputs.Png ? SheetLimits.PngRasterBytes(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) : 0;
-        if (MemoryEstimate.ProblemForPattern(job.Tessellation.Family, tessellation.Pattern.Mesh.VertexCount, raster) is { } tooBig)
-            throw new JobError(job.Tessellation.CellSize is null ? "tessellation.cellsX" : "tessellation.cellSize",
-                tooBig + "; use fewer cells (tessellation.cellsX and tessellation.cellsY) or a larger tessellation.cellSize");
-        var sheetSettings = SheetStage.SettingsFor(job);
-        var fit = FitStage.Run(job, tessellation.Pattern, target, progress, tessellation.DrapeOn);
-        FlatPattern? unfolded = null;
         if (job.Fabrication.AutoScale)
         {
-            unfolded = MeshUnfolder.Unfold(fit.Fit.Mesh, new AutoSolver());
-            job = SheetStage.ResolveScale(job, unfolded, progress);
             output.AddFigure("sheets", "chosenScale", job.Fabrication.Scale);
             output.AddFigure("sheets", "chosenScaleReason", job.Fabrication.ScaleReason!);
         }
         ModelOutputs.AddFit(output, job, tessellation, fit);
-        var warnings = new List<string>();
-        if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
-        if (tessellation.Follow is { CanFollow: false, Message: { } followWarning }) warnings.Add(followWarning);
-        warnings.AddRange(fit.Fit.Adjustments);
-        if (fit.Fit.Buildable && !fit.Fit.Converged)
-            warnings.Add($"the fit is buildable but not finished: {FitStage.Verdict(fit.Fit)}; raise fitting.maxIterations for a closer shape");
-        if (!fit.Fit.Buildable)
+        if (result.Checks is not { } checks)
         {
-            string why = $"the fit is not buildable ({fit.Fit.StopReason}; largest constraint residual {fit.Fit.Residuals.MaxConstraintViolation:0.##E+0})";
-            if (!job.Fitting.AcceptUnconverged)
-            {
-                output.Problem = why + "; no sheets were written. Try more cells, a smaller tessellation.foldDepth, another family (tessel catalog families), or pass --accept-unconverged";
-                return;
-            }
-            warnings.Add(why + "; outputs written because the job accepts an unconverged fit");
+            output.Problem = result.Problem;
+            return;
         }
-
-        double strainLimit = sheetSettings.Material.StrainLimit;
-        var checks = ChecksStage.Run(job, fit.Fit.Mesh, strainLimit, progress, tessellation.Pattern.Envelope, unfolded);
-        ModelOutputs.AddChecks(output, job, checks, strainLimit);
-        if (checks.CollisionCount > 0) warnings.Add($"{checks.CollisionCount} panel collision(s) at the fitted state or along the folding path");
-        if (checks.Strain.FacetsOverLimit.Length > 0)
-            warnings.Add($"{checks.Strain.FacetsOverLimit.Length} facet(s) need more than the material's {strainLimit * 100:0.##} % strain to lie flat (largest {checks.Strain.MaxStrain * 100:0.###} %)");
-        if (checks.FoldBounds is { Violations: > 0 } fb)
-            warnings.Add($"{fb.Violations} fold(s) outside fitting.bounds fold angles {Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0):0.###} to {job.Fitting.Bounds.MaxFoldAngleDeg:0.###} deg ({fb.BelowMinimum} below, {fb.AboveMaximum} above; worst by {fb.MaxViolationRad * 180 / Math.PI:0.###} deg); creases under {FoldRoles.FlatToleranceDeg} deg are drawn flat");
-        if (checks.ShortEdgeCount > 0)
-            warnings.Add($"{checks.ShortEdgeCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestEdgeMm:0.##} mm)");
-        if (tessellation.Pattern.PromisesSynclasticEnvelope && checks.Envelope is { Synclastic: false } env)
-            warnings.Add($"the envelope is not synclastic: angle defect <= 0 at {env.Interior - env.Positive} of {env.Interior} interior envelope vertices (smallest {env.MinDefect:0.##E+0} rad); try another foldDepth or sectorAngleDeg");
-        if (!checks.Path.ReachedNearFlat)
-            warnings.Add($"the rigid folding path did not reach the flat sheet ({checks.Path.StopTowardFlat})");
-
-        SheetStageResult? sheets = null;
-        if (job.Outputs.Svg || job.Outputs.Dxf || job.Outputs.Pdf || job.Outputs.Png)
+        ModelOutputs.AddChecks(output, job, checks, checks.Strain.StrainLimit);
+        if (result.Sheets is { } sheets)
         {
-            try
-            {
-                sheets = SheetStage.Run(job, checks.Flat, progress);
-                ModelOutputs.AddSheets(output, job, sheets);
-                warnings.AddRange(sheets.Layout.Figures.Warnings);
-                if (job.Outputs.Png && SheetLimits.PngNote(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) is { } note)
-                    warnings.Add(note);
-                if (job.Outputs.Png)
-                    output.AddFigure("sheets", "pngDpi", (long)(SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi));
-            }
-            catch (UncuttableLayoutException e)
-            {
-                // The model, checks and report are still worth writing; only the sheets would be wrong.
-                string why = $"no sheets were written: {e.Message}";
-                output.Problem = output.Problem is null ? why : output.Problem + "; " + why;
-                output.AddFigure("sheets", "refused", e.Message);
-                warnings.Add(why);
-                progress.Step(why);
-            }
+            ModelOutputs.AddSheets(output, job, sheets);
+            if (job.Outputs.Png)
+                output.AddFigure("sheets", "pngDpi", (long)(SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi));
         }
+        if (result.SheetsRefused is { } refused) output.AddFigure("sheets", "refused", refused);
+        output.Problem = result.Problem;
+        var warnings = result.Warnings;
         for (int i = 0; i < warnings.Count; i++) output.AddFigure("warnings", $"warning[{i}]", warnings[i]);
 
         if (job.Outputs.Report)
         {
             progress.Stage("report", "previews, report.html and summary.md");
-            var model = ReportAssembly.Build(job, target, tessellation, fit, checks, sheets, warnings);
+            var model = ReportAssembly.Build(job, result.Target.Target, tessellation, fit, checks, result.Sheets, warnings);
             // The report links every file of the build: those made so far, its own, and summary.json.
             var own = ReportFiles.Contents(model).Select(c => c.Name);
             model = model with { Files = [.. output.Files.Select(f => f.Path), .. own, "summary.json"] };
