@@ -7,7 +7,10 @@ public enum ParameterType { Number, Text }
 /// <param name="Name">Field name in the job file (camelCase).</param>
 /// <param name="Default">Value used when the field is absent; null = none (required or optional as the
 /// extension's validation says).</param>
-public sealed record ParameterSpec(string Name, ParameterType Type, double? Default = null);
+/// <param name="Description">The field's description in the JSON Schema; null where an earlier kind in
+/// the table that shares the field describes it for all.</param>
+/// <param name="Positive">The schema states the value must be above zero (the kind's validation checks it).</param>
+public sealed record ParameterSpec(string Name, ParameterType Type, double? Default = null, string? Description = null, bool Positive = false);
 
 /// <summary>The parameters one job section gave an extension, read and type-checked by the loader;
 /// absent fields hold the extension's defaults.</summary>

@@ -8,7 +8,10 @@ public sealed class CylinderKind : TargetKind
     public override string Name => "cylinder";
     public override string Summary => "barrel vault of radius R, axis along x, crown at rise; single curvature (K = 0)";
     public override IReadOnlyList<ParameterSpec> Parameters { get; } =
-        [new("radius", ParameterType.Number), new("rise", ParameterType.Number)];
+    [
+        new("radius", ParameterType.Number, Description: "cylinder, spherical-cap: radius R (positive). Length in target.units.", Positive: true),
+        new("rise", ParameterType.Number),
+    ];
 
     public override void Validate(ParameterBag p, ParameterCheck check)
     {

@@ -8,7 +8,11 @@ public sealed class EllipticParaboloidKind : TargetKind
     public override string Name => "elliptic-paraboloid";
     public override string Summary => "dome with different apex radii radiusX and radiusY";
     public override IReadOnlyList<ParameterSpec> Parameters { get; } =
-        [new("radiusX", ParameterType.Number), new("radiusY", ParameterType.Number), new("rise", ParameterType.Number, 0)];
+    [
+        new("radiusX", ParameterType.Number, Description: "elliptic-paraboloid: apex radius of curvature along x; non-zero, negative bends upward. Length in target.units."),
+        new("radiusY", ParameterType.Number, Description: "elliptic-paraboloid: apex radius of curvature along y; non-zero. Length in target.units."),
+        new("rise", ParameterType.Number, 0),
+    ];
 
     public override void Validate(ParameterBag p, ParameterCheck check)
     {

@@ -8,7 +8,10 @@ public sealed class FormulaKind : TargetKind
 {
     public override string Name => "formula";
     public override string Summary => "any z = f(x, y) you type, with exact derivatives; e.g. 0.1*(x^2 - y^2)";
-    public override IReadOnlyList<ParameterSpec> Parameters { get; } = [new("formula", ParameterType.Text)];
+    public override IReadOnlyList<ParameterSpec> Parameters { get; } =
+    [
+        new("formula", ParameterType.Text, Description: "formula: z = f(x, y) with + - * / ^ (right-associative), unary minus (-x^2 = -(x^2)), parentheses, sin cos tan asin acos atan exp log sqrt abs, pi, e; x, y, z in target.units."),
+    ];
 
     public override void Validate(ParameterBag p, ParameterCheck check)
     {

@@ -9,8 +9,11 @@ public sealed class HeightMapKind : TargetKind
     public override string Summary => "grayscale PNG over width x depth, black = minHeight, white = maxHeight";
     public override IReadOnlyList<ParameterSpec> Parameters { get; } =
     [
-        new("image", ParameterType.Text), new("imageWidth", ParameterType.Number), new("imageDepth", ParameterType.Number),
-        new("minHeight", ParameterType.Number, 0), new("maxHeight", ParameterType.Number),
+        new("image", ParameterType.Text, Description: "height-map: grayscale PNG, relative to the job file; black = minHeight, white = maxHeight, top row at +y."),
+        new("imageWidth", ParameterType.Number, Description: "height-map: extent of the image along x (positive). Length in target.units.", Positive: true),
+        new("imageDepth", ParameterType.Number, Description: "height-map: extent of the image along y (positive). Length in target.units.", Positive: true),
+        new("minHeight", ParameterType.Number, 0, Description: "height-map: height of black pixels. Length in target.units."),
+        new("maxHeight", ParameterType.Number, Description: "height-map: height of white pixels, above minHeight. Length in target.units."),
     ];
 
     public override bool FootprintOptional => true;

@@ -8,7 +8,10 @@ public sealed class HyperbolicParaboloidKind : TargetKind
     public override string Name => "hyperbolic-paraboloid";
     public override string Summary => "saddle canopy z = rise + x*y/c; anticlastic (K < 0)";
     public override IReadOnlyList<ParameterSpec> Parameters { get; } =
-        [new("c", ParameterType.Number), new("rise", ParameterType.Number, 0)];
+    [
+        new("c", ParameterType.Number, Description: "hyperbolic-paraboloid: z = rise + x*y/c; non-zero. Length in target.units."),
+        new("rise", ParameterType.Number, 0),
+    ];
 
     public override void Validate(ParameterBag p, ParameterCheck check)
     {

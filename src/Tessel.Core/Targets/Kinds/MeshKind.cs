@@ -8,7 +8,10 @@ public sealed class MeshKind : TargetKind
 {
     public override string Name => "mesh";
     public override string Summary => "OBJ or STL surface, seen from above; curvature is an estimate";
-    public override IReadOnlyList<ParameterSpec> Parameters { get; } = [new("mesh", ParameterType.Text)];
+    public override IReadOnlyList<ParameterSpec> Parameters { get; } =
+    [
+        new("mesh", ParameterType.Text, Description: "mesh: OBJ or STL file relative to the job file, in target.units, seen from above."),
+    ];
 
     public override bool FootprintOptional => true;
 

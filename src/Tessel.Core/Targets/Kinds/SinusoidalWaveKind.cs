@@ -9,8 +9,10 @@ public sealed class SinusoidalWaveKind : TargetKind
     public override string Summary => "corrugated roof: amplitude, wavelength and phase along x";
     public override IReadOnlyList<ParameterSpec> Parameters { get; } =
     [
-        new("amplitude", ParameterType.Number), new("wavelength", ParameterType.Number),
-        new("phaseDeg", ParameterType.Number, 0), new("rise", ParameterType.Number, 0),
+        new("amplitude", ParameterType.Number, Description: "sinusoidal-wave: amplitude (positive). Length in target.units.", Positive: true),
+        new("wavelength", ParameterType.Number, Description: "sinusoidal-wave: wavelength along x (positive). Length in target.units.", Positive: true),
+        new("phaseDeg", ParameterType.Number, 0, Description: "sinusoidal-wave: phase in degrees."),
+        new("rise", ParameterType.Number, 0),
     ];
 
     public override void Validate(ParameterBag p, ParameterCheck check)

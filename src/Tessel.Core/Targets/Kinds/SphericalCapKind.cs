@@ -8,7 +8,10 @@ public sealed class SphericalCapKind : TargetKind
     public override string Name => "spherical-cap";
     public override string Summary => "dome: part of a sphere of radius R, apex at rise; synclastic (K > 0)";
     public override IReadOnlyList<ParameterSpec> Parameters { get; } =
-        [new("radius", ParameterType.Number), new("rise", ParameterType.Number)];
+    [
+        new("radius", ParameterType.Number, Positive: true),
+        new("rise", ParameterType.Number),
+    ];
 
     public override void Validate(ParameterBag p, ParameterCheck check)
     {

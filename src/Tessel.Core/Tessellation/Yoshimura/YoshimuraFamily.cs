@@ -20,6 +20,11 @@ public sealed class YoshimuraFamily : TessellationFamily
         return new(Name, true, $"The target is single-curved ({k}): a Yoshimura vault fits it, in closed form on a circular cylinder.", null);
     }
 
+    /// <summary>Rings + 1 rows of vertices along the axis, alternately segments + 1 and segments long
+    /// (the diamonds' corners are staggered by half a segment).</summary>
+    public override double Vertices(double cellsX, double cellsY) =>
+        Math.Ceiling((cellsX + 1) / 2) * (cellsY + 1) + Math.Floor((cellsX + 1) / 2) * cellsY;
+
     /// <summary>A Yoshimura vault needs a circle across the footprint's centre.</summary>
     public override FamilyAdvice? CannotBuild(ITargetSurface target) =>
         YoshimuraGenerator.Problem(target) is { } problem
