@@ -13,7 +13,7 @@ namespace Tessel.Core.Jobs;
 /// (the factor's fill), so the model is base + a V + b V^1.5 in the vertex count V, fitted through
 /// the Miura 20 and 70 figures and rounded up; it over-estimates 40 x 40 by 15 % and so errs on the
 /// safe side. Each family's descriptor counts its vertices and scales these figures by its
-/// <see cref="FamilyInfo.MemoryFactor"/> (waterbomb 1.5; the others as Miura). The PNG raster of a
+/// <see cref="FamilyInfo.MemoryFactor"/> (waterbomb 1.5, Yoshimura 3; the others as Miura). The PNG raster of a
 /// sheet is added twice (the bitmap and its encoding).
 /// </remarks>
 public static class MemoryEstimate
