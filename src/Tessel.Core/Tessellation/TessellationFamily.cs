@@ -26,6 +26,14 @@ public abstract class TessellationFamily : FamilyInfo
     public virtual double DefaultFoldDepth(double cellX, double cellY, double sectorAngleDeg) =>
         0.25 * Math.Min(cellX, cellY) * Math.Tan(sectorAngleDeg * Math.PI / 180) / 2;
 
+    /// <summary>How far one cell can turn (radians) with these parameters before a crease goes flat
+    /// (<see cref="FollowEstimate"/>); null where the family is not judged this way. May throw
+    /// <see cref="ArgumentException"/> where the parameters make no cell.</summary>
+    public abstract double? TurnLimit(Footprint footprint, FamilyParameters p);
+
+    /// <summary>False for a family with one vertex layer, where the fold depth means nothing.</summary>
+    public virtual bool HasFoldDepth => true;
+
     /// <summary>Degree-4 families place a 2 x 2 block of vertices per cell.</summary>
     public override double Vertices(double cellsX, double cellsY) => (2 * cellsX + 1) * (2 * cellsY + 1);
 }

@@ -14,6 +14,11 @@ public sealed class FreeTriangulatedFamily : TessellationFamily
             CorrugatedStart = p.BuildableStart && p.FlatDiagonalShare == 0,
         });
 
+    public override double? TurnLimit(Footprint footprint, FamilyParameters p) => FollowEstimate.NetTurnLimit;
+
+    /// <summary>One vertex layer: no fold depth.</summary>
+    public override bool HasFoldDepth => false;
+
     public override FamilyAdvice Judge(CurvatureFigures c)
     {
         var (dome, saddle, curved, k) = FamilyAdvice.Shape(c);

@@ -18,6 +18,13 @@ public sealed class MiuraFamily : TessellationFamily
         return new(Name, true, $"The target is saddle-like or single-curved ({k}): Miura sheets bend this way naturally.", null);
     }
 
+    /// <summary>The facet tilt theta of the Miura cell (Schenk and Guest 2013; sin theta = H / (a sin gamma)).</summary>
+    public override double? TurnLimit(Footprint footprint, FamilyParameters p) => MiuraTurnLimit(footprint, p);
+
+    /// <summary>The Miura cell's facet tilt, shared with the reverse-curvature family.</summary>
+    public static double MiuraTurnLimit(Footprint footprint, FamilyParameters p) =>
+        MiuraGenerator.ResolveCell(footprint, ParametersOf(p)).Cell.Theta;
+
     /// <summary>The Miura-type parameters of the common set (shared with the reverse-curvature family).</summary>
     public static MiuraParameters ParametersOf(FamilyParameters p) =>
         new(p.CellsX, p.CellsY, p.CellSize, p.SectorAngleDeg, p.FoldDepth, p.OrientationDeg);

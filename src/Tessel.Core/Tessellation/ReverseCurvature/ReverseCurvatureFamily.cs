@@ -14,6 +14,9 @@ public sealed class ReverseCurvatureFamily : TessellationFamily
     public override GeneratedPattern Generate(ITargetSurface target, FamilyParameters p) =>
         ReverseCurvatureGenerator.Generate(target, new ReverseCurvatureParameters(MiuraFamily.ParametersOf(p)));
 
+    /// <summary>As a Miura sheet's: the graded cells start from the same facet tilt.</summary>
+    public override double? TurnLimit(Footprint footprint, FamilyParameters p) => MiuraFamily.MiuraTurnLimit(footprint, p);
+
     public override FamilyAdvice Judge(CurvatureFigures c)
     {
         var (dome, saddle, curved, k) = FamilyAdvice.Shape(c);

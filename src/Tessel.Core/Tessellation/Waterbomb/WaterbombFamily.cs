@@ -11,6 +11,13 @@ public sealed class WaterbombFamily : TessellationFamily
     public override GeneratedPattern Generate(ITargetSurface target, FamilyParameters p) =>
         WaterbombGenerator.Generate(target, new WaterbombParameters(p.CellsX, p.CellsY, p.CellSize, p.FoldDepth));
 
+    /// <summary>atan(2 d / base) for a base whose centre stands d above its grid lines.</summary>
+    public override double? TurnLimit(Footprint footprint, FamilyParameters p)
+    {
+        double size = Math.Min(footprint.Width / p.CellsX!.Value, footprint.Depth / p.CellsY!.Value);
+        return p.FoldDepth > 0 ? Math.Atan(2 * p.FoldDepth / size) : null;
+    }
+
     public override FamilyAdvice Judge(CurvatureFigures c)
     {
         var (dome, saddle, curved, k) = FamilyAdvice.Shape(c);

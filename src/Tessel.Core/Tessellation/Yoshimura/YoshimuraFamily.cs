@@ -11,6 +11,9 @@ public sealed class YoshimuraFamily : TessellationFamily
     public override GeneratedPattern Generate(ITargetSurface target, FamilyParameters p) =>
         YoshimuraGenerator.Generate(target, new YoshimuraParameters(p.CellsY, p.CellsX, p.CellSize));
 
+    /// <summary>Not judged: the vault is built in closed form on the target's circle.</summary>
+    public override double? TurnLimit(Footprint footprint, FamilyParameters p) => null;
+
     public override FamilyAdvice Judge(CurvatureFigures c)
     {
         var (dome, saddle, curved, k) = FamilyAdvice.Shape(c);
