@@ -13,7 +13,7 @@ namespace Tessel.Core.Jobs;
 /// <param name="KerfMm">Width of material the cutter removes.</param>
 /// <param name="Tab">Glue tab shape.</param>
 /// <param name="HairlineMm">Stroke width of cut and fold lines.</param>
-/// <param name="Layers">Line class (camelCase name of a <see cref="Sheets.LineClass"/>) to style; always holds every class.</param>
+/// <param name="Layers">Line class (camelCase name of a <see cref="LineClass"/>) to style; always holds every class.</param>
 public sealed record FabricationSpec(
     double Scale,
     string Material,
@@ -28,7 +28,7 @@ public sealed record FabricationSpec(
     IReadOnlyDictionary<string, LayerStyle> Layers)
 {
     /// <summary>The job asked for <c>"scale": "auto"</c>: the sheet stage chooses <see cref="Scale"/> from the
-    /// common architectural scales (<see cref="Sheets.ScaleChoice"/>); until then <see cref="Scale"/> is NaN.</summary>
+    /// common architectural scales; until then <see cref="Scale"/> is NaN.</summary>
     public bool AutoScale { get; init; }
 
     /// <summary>With <see cref="AutoScale"/>, once chosen: which scale and why, for the summary.</summary>

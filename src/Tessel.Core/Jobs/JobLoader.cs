@@ -121,21 +121,17 @@ public static partial class JobLoader
     {
         string? kind = r.String("kind");
         string units = r.String("units") ?? "m";
-        var radius = r.Number("radius");
-        var rise = r.Number("rise");
-        var c = r.Number("c");
-        var rx = r.Number("radiusX");
-        var ry = r.Number("radiusY");
-        var amplitude = r.Number("amplitude");
-        var wavelength = r.Number("wavelength");
-        double phase = r.Number("phaseDeg") ?? 0;
-        var formula = r.String("formula");
-        var image = r.String("image");
-        var imageWidth = r.Number("imageWidth");
-        var imageDepth = r.Number("imageDepth");
-        var minHeight = r.Number("minHeight");
-        var maxHeight = r.Number("maxHeight");
-        var mesh = r.String("mesh");
+        var vocabulary = JobVocabulary.Registered;
+        // Every kind's fields are read (and type-checked) whatever the kind, so that the schema's field
+        // list and unknown-field suggestions do not depend on the kind.
+        var allParameters = vocabulary.TargetKinds.SelectMany(k => k.Parameters).DistinctBy(p => p.Name).ToArray();
+        var numbers = new Dictionary<string, double>(StringComparer.Ordinal);
+        var texts = new Dictionary<string, string>(StringComparer.Ordinal);
+        foreach (var parameter in allParameters)
+        {
+            if (parameter.Type == ParameterType.Text) { if (r.String(parameter.Name) is { } text) texts[parameter.Name] = text; }
+            else if (r.Number(parameter.Name) is double number) numbers[parameter.Name] = number;
+        }
         var fr = r.Object("footprint");
         bool hasFootprint = r.Has("footprint");
         var fw = fr.Number("width");
@@ -145,15 +141,17 @@ public static partial class JobLoader
         r.RejectUnknown();
 
         if (kind is null) throw Missing(r, "kind", Names(Catalog.TargetKinds));
-        CheckChoice(r.PathOf("kind"), kind, Catalog.TargetKinds.Select(k => k.Name));
+        CheckChoice(r.PathOf("kind"), kind, vocabulary.TargetKinds.Select(k => k.Name));
         CheckChoice(r.PathOf("units"), units, Geometry.Units.Known);
         string len = $"length in {units}";
+        var targetKind = vocabulary.Kind(kind)!;
+        var own = targetKind.Parameters.Select(p => p.Name).ToArray();
         // A parameter that the kind ignores is almost always a mistake (a kind changed, a field copied
         // from another job), so it is reported rather than silently dropped.
-        foreach (var field in KindParameters.Values.SelectMany(f => f).Distinct())
+        foreach (var field in allParameters.Select(p => p.Name))
         {
-            if (r.Has(field) && !KindParameters[kind].Contains(field))
-                throw new JobError(r.PathOf(field), $"is not used by kind \"{kind}\"; remove it (that kind takes {(KindParameters[kind].Length == 0 ? "no parameters" : string.Join(", ", KindParameters[kind]))})");
+            if (r.Has(field) && !own.Contains(field))
+                throw new JobError(r.PathOf(field), $"is not used by kind \"{kind}\"; remove it (that kind takes {(own.Length == 0 ? "no parameters" : string.Join(", ", own))})");
         }
 
         FootprintSpec? footprint = null;
@@ -192,50 +190,20 @@ public static partial class JobLoader
             if (span < MinFootprintMetres)
                 throw new JobError(where, $"the footprint spans {Format(span)} m; Tessel needs at least {Format(MinFootprintMetres)} m across: check the units (target.units)");
         }
-        else if (kind is not ("height-map" or "mesh"))
+        else if (!targetKind.FootprintOptional)
         {
             throw new JobError(r.PathOf("footprint"), "missing; add \"footprint\": { \"width\": ..., \"depth\": ... } or { \"corners\": [[x, y], ...] }");
         }
 
-        switch (kind)
+        foreach (var parameter in targetKind.Parameters)
         {
-            case "cylinder":
-            case "spherical-cap":
-                Positive(r.PathOf("radius"), radius, len, required: true);
-                NonNegative(r.PathOf("rise"), rise, len, required: true);
-                break;
-            case "hyperbolic-paraboloid":
-                if (c is null) throw new JobError(r.PathOf("c"), $"missing; z = rise + x*y/c needs c, a non-zero {len}");
-                if (c == 0) throw new JobError(r.PathOf("c"), $"must be a non-zero {len} (got 0)");
-                break;
-            case "elliptic-paraboloid":
-                NonZero(r.PathOf("radiusX"), rx, len);
-                NonZero(r.PathOf("radiusY"), ry, len);
-                break;
-            case "sinusoidal-wave":
-                Positive(r.PathOf("amplitude"), amplitude, len, required: true);
-                Positive(r.PathOf("wavelength"), wavelength, len, required: true);
-                break;
-            case "formula":
-                if (string.IsNullOrWhiteSpace(formula))
-                    throw new JobError(r.PathOf("formula"), "missing; write z as a function of x and y, e.g. \"0.1*(x^2 - y^2)\"");
-                break;
-            case "height-map":
-                if (string.IsNullOrWhiteSpace(image)) throw new JobError(r.PathOf("image"), "missing; give the path of a grayscale PNG");
-                Positive(r.PathOf("imageWidth"), imageWidth, len, required: true);
-                Positive(r.PathOf("imageDepth"), imageDepth, len, required: true);
-                if (maxHeight is null) throw new JobError(r.PathOf("maxHeight"), $"missing; the height of white pixels, a {len}");
-                if (!(maxHeight > (minHeight ?? 0)))
-                    throw new JobError(r.PathOf("maxHeight"), $"must be greater than minHeight ({Format(minHeight ?? 0)}) (got {Format(maxHeight.Value)})");
-                break;
-            case "mesh":
-                if (string.IsNullOrWhiteSpace(mesh)) throw new JobError(r.PathOf("mesh"), "missing; give the path of an .obj or .stl file");
-                string ext = Path.GetExtension(mesh).ToLowerInvariant();
-                if (ext is not (".obj" or ".stl")) throw new JobError(r.PathOf("mesh"), $"must be an .obj or .stl file (got \"{mesh}\")");
-                break;
+            if (parameter.Default is double d) numbers.TryAdd(parameter.Name, d);
         }
-        return new TargetSpec(kind, units, radius, rise, c, rx, ry, amplitude, wavelength, phase, formula, image,
-            imageWidth, imageDepth, minHeight, maxHeight, mesh, footprint);
+        var parameters = new ParameterBag(
+            numbers.Where(p => own.Contains(p.Key)).ToDictionary(StringComparer.Ordinal),
+            texts.Where(p => own.Contains(p.Key)).ToDictionary(StringComparer.Ordinal));
+        targetKind.Validate(parameters, new ParameterCheck("target", units));
+        return new TargetSpec(kind, units, parameters, footprint);
     }
 
     /// <summary>The first pair of non-adjacent polygon edges (edge i runs from corner i to i+1) that
@@ -254,20 +222,6 @@ public static partial class JobLoader
             }
         return null;
     }
-
-    /// <summary>Kind-specific target parameters; kind, units and footprint apply to every kind.</summary>
-    private static readonly Dictionary<string, string[]> KindParameters = new()
-    {
-        ["plane"] = ["rise"],
-        ["cylinder"] = ["radius", "rise"],
-        ["spherical-cap"] = ["radius", "rise"],
-        ["hyperbolic-paraboloid"] = ["c", "rise"],
-        ["elliptic-paraboloid"] = ["radiusX", "radiusY", "rise"],
-        ["sinusoidal-wave"] = ["amplitude", "wavelength", "phaseDeg", "rise"],
-        ["formula"] = ["formula"],
-        ["height-map"] = ["image", "imageWidth", "imageDepth", "minHeight", "maxHeight"],
-        ["mesh"] = ["mesh"],
-    };
 
     private static TessellationSpec ReadTessellation(FieldReader r)
     {
@@ -312,7 +266,7 @@ public static partial class JobLoader
             }
             else { extentX = f.Width; extentY = f.Depth; }
         }
-        else if (target.Kind == "height-map") { extentX = target.ImageWidth; extentY = target.ImageDepth; }
+        else if (JobVocabulary.Registered.Kind(target.Kind)?.ExtentWithoutFootprint(target.Parameters) is { } extent) { extentX = extent.X; extentY = extent.Y; }
         static double? Derived(double? extent, double? size) =>
             extent is double e && size is double s ? Math.Max(1, Math.Round(e / s)) : null;
         double? cx = tess.CellsX ?? Derived(extentX, tess.CellSize);
@@ -419,9 +373,9 @@ public static partial class JobLoader
         if (sheetName is not null)
         {
             if (sw is not null || sh is not null) throw new JobError(s.PathOf("name"), "give either a sheet name or widthMm and heightMm, not both");
-            if (!Sheets.SheetSizes.TryFind(sheetName, out var named))
-                throw new JobError(s.PathOf("name"), $"unknown sheet size \"{sheetName}\"{Suggest(sheetName, Sheets.SheetSizes.All.Select(x => x.Name))}; see 'tessel catalog sheets' or give widthMm and heightMm");
-            sheet = new SheetSpec(named.Name, named.Portrait.WidthMm, named.Portrait.HeightMm);
+            if (JobVocabulary.Registered.FindSheet(sheetName) is not { } named)
+                throw new JobError(s.PathOf("name"), $"unknown sheet size \"{sheetName}\"{Suggest(sheetName, JobVocabulary.Registered.SheetSizes.Select(x => x.Name))}; see 'tessel catalog sheets' or give widthMm and heightMm");
+            sheet = new SheetSpec(named.Name, named.WidthMm, named.HeightMm);
         }
         else if (sw is null && sh is null) sheet = new SheetSpec("A3", 297, 420);
         else
@@ -453,25 +407,11 @@ public static partial class JobLoader
             margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers) { AutoScale = autoScale, MaxSheets = maxSheets };
     }
 
-    /// <summary>Cutter operations a layer can be mapped to (names of <see cref="Sheets.LineOperation"/>).</summary>
+    /// <summary>Cutter operations a layer can be mapped to (the sheet stage's line operations).</summary>
     public static readonly IReadOnlyList<string> Operations = ["cut", "score", "mark", "draw-only"];
 
     /// <summary>Layer styles used when the job does not override them: the sheet stage's default table.</summary>
-    public static readonly IReadOnlyDictionary<string, LayerStyle> DefaultLayers = Enum.GetValues<Model.LineClass>()
-        .ToDictionary(c => char.ToLowerInvariant(c.ToString()[0]) + c.ToString()[1..], c =>
-        {
-            var style = Sheets.LineStyleTable.Default[c];
-            return new LayerStyle(style.ColourHex.ToLowerInvariant(), style.DxfColourIndex, OperationName(style.Operation));
-        });
-
-    /// <summary>Job-file name of a cutter operation.</summary>
-    public static string OperationName(Sheets.LineOperation operation) => operation switch
-    {
-        Sheets.LineOperation.Cut => "cut",
-        Sheets.LineOperation.Score => "score",
-        Sheets.LineOperation.Mark => "mark",
-        _ => "draw-only",
-    };
+    public static IReadOnlyDictionary<string, LayerStyle> DefaultLayers => JobVocabulary.Registered.DefaultLayers;
 
     [GeneratedRegex("^#[0-9A-Fa-f]{6}$")]
     private static partial Regex HexColour();
@@ -529,12 +469,6 @@ public static partial class JobLoader
             return;
         }
         if (!(v >= 0)) throw new JobError(path, $"must be a {what} >= 0 (got {Format(v.Value)})");
-    }
-
-    private static void NonZero(string path, double? v, string what)
-    {
-        if (v is null) throw new JobError(path, $"missing; must be a non-zero {what} (negative bends downward)");
-        if (v == 0) throw new JobError(path, $"must be a non-zero {what} (got 0)");
     }
 
     private static void Angle(string path, double v)

@@ -28,64 +28,11 @@ public static class JobScaffold
                 "units": "m",
 
             """);
-        sb.Append(kind switch
+        var targetKind = JobVocabulary.Registered.Kind(kind)!;
+        sb.Append(targetKind.ScaffoldLines);
+        sb.Append(targetKind.FootprintOptional switch
         {
-            "plane" => """
-                    // Height of the plane.
-                    "rise": 0,
-                """,
-            "cylinder" => """
-                    // Barrel vault: radius of the circle and height of the crown; the axis runs along x.
-                    "radius": 12,
-                    "rise": 3,
-                """,
-            "spherical-cap" => """
-                    // Dome: sphere radius and apex height. The footprint must fit inside the base circle.
-                    "radius": 30,
-                    "rise": 2.5,
-                """,
-            "hyperbolic-paraboloid" => """
-                    // Saddle z = rise + x*y/c: a smaller c twists more.
-                    "c": 30,
-                    "rise": 3,
-                """,
-            "elliptic-paraboloid" => """
-                    // Apex radii of curvature along x and y; negative bends upward (a bowl).
-                    "radiusX": 30,
-                    "radiusY": 40,
-                    "rise": 2,
-                """,
-            "sinusoidal-wave" => """
-                    // Corrugation along x: amplitude, wavelength and phase (degrees).
-                    "amplitude": 0.4,
-                    "wavelength": 16,
-                    "phaseDeg": 0,
-                """,
-            "formula" => """
-                    // z as a function of x and y in the units above: + - * / ^, sin cos tan asin acos atan
-                    // exp log sqrt abs, pi and e. -x^2 means -(x^2); write 2*x, not 2x.
-                    // This one is a gentle vault curved across y; try e.g. 2 + 0.01*(x^2 - y^2) for a saddle.
-                    "formula": "2.5 - 0.02*y^2",
-                """,
-            "height-map" => """
-                    // Grayscale PNG (relative to this file): black = minHeight, white = maxHeight.
-                    // Rows run from the far (+y) edge to the near edge; the image spans imageWidth x imageDepth.
-                    // 'tessel scaffold' wrote an invented example beside this file: a shallow dome. Replace it.
-                    "image": "site-heights.png",
-                    "imageWidth": 20,
-                    "imageDepth": 15,
-                    "minHeight": 1.8,
-                    "maxHeight": 3,
-                """,
-            _ => """
-                    // OBJ or STL file (relative to this file) seen from above, in the units above.
-                    // 'tessel scaffold' wrote an invented example beside this file: a shallow dome. Replace it.
-                    "mesh": "canopy.obj",
-                """,
-        });
-        sb.Append(kind switch
-        {
-            "height-map" or "mesh" => """
+            true => """
 
                     // The footprint may be left out: it then covers the whole image or mesh in plan.
                     // "footprint": { "width": 12, "depth": 10 },

@@ -12,10 +12,9 @@ namespace Tessel.Core.Jobs;
 /// 96.2 MB; waterbomb 20 x 20 on a dome (1,271 vertices) 134 MB. The growth is faster than linear
 /// (the factor's fill), so the model is base + a V + b V^1.5 in the vertex count V, fitted through
 /// the Miura 20 and 70 figures and rounded up; it over-estimates 40 x 40 by 15 % and so errs on the
-/// safe side. Waterbomb vertices (degree 6) carry more constraints: a factor 1.5 covers its figure.
-/// Free-triangulated sheets were not measured (their fits ran past a 400 s cap on the loaded machine);
-/// they use the Miura figures per vertex. The PNG raster of a sheet is added
-/// twice (the bitmap and its encoding).
+/// safe side. Each family's descriptor counts its vertices and scales these figures by its
+/// <see cref="FamilyInfo.MemoryFactor"/> (waterbomb 1.5, Yoshimura 3; the others as Miura). The PNG raster of a
+/// sheet is added twice (the bitmap and its encoding).
 /// </remarks>
 public static class MemoryEstimate
 {
@@ -36,21 +35,15 @@ public static class MemoryEstimate
     /// (physical memory, or a container's limit). Settable so tests get machine-independent messages.</summary>
     public static double BudgetBytes { get; set; } = MachineShare * GC.GetGCMemoryInfo().TotalAvailableMemoryBytes;
 
-    /// <summary>Pattern vertices of <paramref name="cellsX"/> x <paramref name="cellsY"/> cells: the
-    /// degree-4 and degree-6 families place a 2 x 2 block of vertices per cell, free-triangulated quads one.</summary>
-    public static double Vertices(string family, double cellsX, double cellsY) => family switch
-    {
-        "free-triangulated" => (cellsX + 1) * (cellsY + 1),
-        // Grid-line vertices plus one centre per base (odd rows end in two half bases).
-        "waterbomb" => (2 * cellsX + 1) * (cellsY + 1) + cellsX * cellsY + Math.Floor(cellsY / 2),
-        _ => (2 * cellsX + 1) * (2 * cellsY + 1),
-    };
+    /// <summary>Pattern vertices of <paramref name="cellsX"/> x <paramref name="cellsY"/> cells of the
+    /// named family, by its descriptor's count.</summary>
+    /// <exception cref="ArgumentException">A family the registered vocabulary does not know.</exception>
+    public static double Vertices(string family, double cellsX, double cellsY) => Descriptor(family).Vertices(cellsX, cellsY);
 
-    private static double FamilyFactor(string family) => family switch
-    {
-        "waterbomb" => 1.5,
-        _ => 1.0,
-    };
+    private static double FamilyFactor(string family) => Descriptor(family).MemoryFactor;
+
+    private static FamilyInfo Descriptor(string family) =>
+        JobVocabulary.Registered.Family(family) ?? throw new ArgumentException($"unknown family '{family}'", nameof(family));
 
     /// <summary>Estimated peak bytes of a build whose pattern has <paramref name="vertices"/> vertices,
     /// plus <paramref name="rasterBytes"/> for one PNG sheet.</summary>

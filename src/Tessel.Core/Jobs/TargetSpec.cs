@@ -1,27 +1,10 @@
 namespace Tessel.Core.Jobs;
 
 /// <summary>The job's <c>target</c> section: which surface to model and its parameters, all lengths in
-/// <see cref="Units"/> (converted to metres when the target is built). Parameters a kind does not use
-/// stay null.</summary>
-public sealed record TargetSpec(
-    string Kind,
-    string Units,
-    double? Radius,
-    double? Rise,
-    double? C,
-    double? RadiusX,
-    double? RadiusY,
-    double? Amplitude,
-    double? Wavelength,
-    double PhaseDeg,
-    string? Formula,
-    string? Image,
-    double? ImageWidth,
-    double? ImageDepth,
-    double? MinHeight,
-    double? MaxHeight,
-    string? Mesh,
-    FootprintSpec? Footprint)
+/// <see cref="Units"/> (converted to metres when the target is built).</summary>
+/// <param name="Kind">One of <see cref="Catalog.TargetKinds"/>.</param>
+/// <param name="Parameters">The kind's own fields, validated by its descriptor; absent ones hold the kind's defaults.</param>
+public sealed record TargetSpec(string Kind, string Units, ParameterBag Parameters, FootprintSpec? Footprint)
 {
     /// <summary>Metres per job length unit.</summary>
     public double MetresPerUnit => Geometry.Units.TryMetresPer(Units, out double m) ? m : double.NaN;

@@ -30,15 +30,18 @@ public static class TessellationStage
         var curvature = CurvatureFigures.Sample(target);
         var advice = FamilyAdvice.For(spec.Family, target, curvature);
         if (!advice.Suits) progress.Step(advice.Message);
+        // The job loader accepts exactly the registered families; a job built in code may name another.
+        var family = TessellationFamilies.Find(spec.Family)
+            ?? throw new JobError("tessellation.family", $"unknown family '{spec.Family}'; known families: {string.Join(", ", TessellationFamilies.Names)}");
         Units.TryMetresPer(job.Target.Units, out double metres);
         var p = new FamilyParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
-            spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(target.Footprint, spec, metres),
+            spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(family, target.Footprint, spec, metres),
             spec.OrientationDeg, spec.FlatDiagonalShare);
         var follow = advice.Suits ? FollowEstimate.Check(spec.Family, target, p, curvature, depthScalesWithCells: spec.FoldDepth is null) : null;
         if (follow is { CanFollow: false, Message: { } warning }) progress.Step(warning);
         try
         {
-            var pattern = FamilyGenerators.Generate(spec.Family, target, p);
+            var pattern = family.Generate(target, p);
             progress.Step($"{pattern.Mesh.VertexCount} vertices, {pattern.Mesh.FaceCount} facets, {pattern.Mesh.EdgeCount} edges");
             // Facets joined only at corners cannot be laid flat as one sheet (nor folded as one): say so here,
             // where the cells meet the footprint, rather than as a singular system in the unfolding.
@@ -46,7 +49,7 @@ public static class TessellationStage
             if (pieces > 1)
                 throw new JobError(spec.CellsX is null && spec.CellSize is not null ? "tessellation.cellSize" : "tessellation.cellsX",
                     $"the {spec.Family} pattern falls into {pieces} pieces on this footprint (facets meet only at corners where the footprint narrows); use smaller cells (more cellsX and cellsY) or a wider footprint");
-            return new TessellationStageResult(pattern, advice) { Follow = follow, DrapeOn = surface => FamilyGenerators.Generate(spec.Family, surface, p with { BuildableStart = true }) };
+            return new TessellationStageResult(pattern, advice) { Follow = follow, DrapeOn = surface => family.Generate(surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)
         {
@@ -54,16 +57,13 @@ public static class TessellationStage
         }
     }
 
-    /// <summary>A fold depth of a quarter of the smaller cell half-size keeps a Miura sheet well away from
-    /// folded shut at any acute sector angle (depth below L tan(gamma)).</summary>
-    private static double DefaultFoldDepth(Footprint fp, TessellationSpec spec, double metres)
+    /// <summary>The family's fold depth for the job's plan cell size (cells given, or the cell size,
+    /// or an eighth of the footprint).</summary>
+    private static double DefaultFoldDepth(TessellationFamily family, Footprint fp, TessellationSpec spec, double metres)
     {
         double cx = spec.CellsX is int nx ? fp.Width / nx : (spec.CellSize ?? fp.Width / 8) * metres;
         double cy = spec.CellsY is int ny ? fp.Depth / ny : (spec.CellSize ?? fp.Depth / 8) * metres;
-        // Waterbomb bases have no sector-angle parameter: their centres start a fifth of the base above the
-        // grid lines (the depth the generator's messages recommend); Miura-type sheets derive it from the angle.
-        if (spec.Family == "waterbomb") return 0.2 * Math.Min(cx, cy);
-        return 0.25 * Math.Min(cx, cy) * Math.Tan(spec.SectorAngleDeg * Math.PI / 180) / 2;
+        return family.DefaultFoldDepth(cx, cy, spec.SectorAngleDeg);
     }
 
     private static string FieldOf(string? parameter) => parameter switch

@@ -2,7 +2,6 @@ using System.Globalization;
 using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
 using Tessel.Core.Targets.Formulas;
-using Tessel.Core.Targets.Meshes;
 
 namespace Tessel.Core.Targets;
 
@@ -20,20 +19,8 @@ public static class TargetFactory
     {
         double s = spec.MetresPerUnit;
         var footprint = spec.Footprint is null ? null : FootprintOf(spec.Footprint, s);
-        ITargetSurface target = spec.Kind switch
-        {
-            "plane" => new PlaneSurface(footprint!, s * (spec.Rise ?? 0)),
-            "cylinder" => new CylinderSurface(footprint!, s * spec.Radius!.Value, s * spec.Rise!.Value),
-            "spherical-cap" => new SphericalCapSurface(footprint!, s * spec.Radius!.Value, s * spec.Rise!.Value),
-            "hyperbolic-paraboloid" => new HyperbolicParaboloidSurface(footprint!, s * spec.C!.Value, s * (spec.Rise ?? 0)),
-            "elliptic-paraboloid" => new EllipticParaboloidSurface(footprint!, s * spec.RadiusX!.Value, s * spec.RadiusY!.Value, s * (spec.Rise ?? 0)),
-            "sinusoidal-wave" => new SinusoidalWaveSurface(footprint!, s * spec.Amplitude!.Value, s * spec.Wavelength!.Value,
-                spec.PhaseDeg * Math.PI / 180, s * (spec.Rise ?? 0)),
-            "formula" => Formula(spec, footprint!, s),
-            "height-map" => HeightMap(spec, footprint, s, baseDirectory, decodeImage),
-            "mesh" => Mesh(spec, footprint, s, baseDirectory),
-            _ => throw new JobError("target.kind", $"unknown kind \"{spec.Kind}\""),
-        };
+        var kind = TargetKinds.Find(spec.Kind) ?? throw new JobError("target.kind", $"unknown kind \"{spec.Kind}\"");
+        var target = kind.Build(spec, footprint, new TargetInputs(baseDirectory, decodeImage));
         var bad = TargetDomainCheck.FirstUndefined(target);
         // Samples can step over a pole or a kink; the formula's intervals cannot (a box search over the footprint).
         if (bad is null && target is FormulaSurface formula && footprint is not null)
@@ -47,16 +34,10 @@ public static class TargetFactory
         }
         if (bad is { } b)
         {
-            string field = spec.Kind switch { "formula" => "target.formula", "mesh" => "target.mesh", "height-map" => "target.footprint", _ => "target.footprint" };
+            string field = kind.UndefinedField;
             // Mesh and image problems name the file, so the message says which input to fix.
-            string? file = spec.Kind switch { "mesh" => spec.Mesh, "height-map" => spec.Image, _ => null };
-            string fix = spec.Kind switch
-            {
-                "formula" => "change the formula",
-                "mesh" => "check that the mesh covers the footprint in plan",
-                "height-map" => "check the image and its imageWidth and imageDepth",
-                _ => "change the parameters",
-            };
+            string? file = kind.InputFile(spec.Parameters);
+            string fix = kind.UndefinedFix;
             throw new JobError(field,
                 $"{(file is null ? "" : Path.GetFileName(file) + ": ")}{b.What} at x = {Fmt(b.X / s)}, y = {Fmt(b.Y / s)} {spec.Units} inside the footprint; {fix} or shrink the footprint");
         }
@@ -70,51 +51,5 @@ public static class TargetFactory
     {
         if (f.Corners is { } c) return Footprint.Polygon(c.Select(p => new Vec2(p[0] * metresPerUnit, p[1] * metresPerUnit)).ToArray());
         return Footprint.Rectangle(f.Width!.Value * metresPerUnit, f.Depth!.Value * metresPerUnit);
-    }
-
-    private static FormulaSurface Formula(TargetSpec spec, Footprint footprint, double s)
-    {
-        string text = spec.Formula!;
-        try
-        {
-            return new FormulaSurface(footprint, text, FormulaParser.Parse(text), s);
-        }
-        catch (FormulaSyntaxError e)
-        {
-            // A long formula is quoted by its start; the column locates the problem.
-            string quoted = text.Length <= 80 ? text : text[..77] + "...";
-            throw new JobError("target.formula", $"{e.Message} in \"{quoted}\"");
-        }
-    }
-
-    private static string Resolve(string baseDirectory, string path) =>
-        Path.IsPathRooted(path) ? path : Path.GetFullPath(Path.Combine(baseDirectory, path));
-
-    private static HeightMapSurface HeightMap(TargetSpec spec, Footprint? footprint, double s, string baseDirectory, GrayImageDecoder? decode)
-    {
-        if (decode is null) throw new JobError("target.image", "height maps need an image reader, which this front end does not provide");
-        string path = Resolve(baseDirectory, spec.Image!);
-        InputFile.RequireRegular(path, "target.image", "image file", InputFile.MaxImageBytes);
-        var img = decode(path);
-        if (img.Width < 2 || img.Height < 2) throw new JobError("target.image", $"the image must be at least 2 x 2 pixels (got {img.Width} x {img.Height})");
-        double w = s * spec.ImageWidth!.Value, d = s * spec.ImageDepth!.Value;
-        return HeightMapSurface.FromLevels(footprint ?? Footprint.Rectangle(w, d), img.Width, img.Height, img.Levels, w, d,
-            s * (spec.MinHeight ?? 0), s * spec.MaxHeight!.Value);
-    }
-
-    private static MeshSurface Mesh(TargetSpec spec, Footprint? footprint, double s, string baseDirectory)
-    {
-        string path = Resolve(baseDirectory, spec.Mesh!);
-        byte[] bytes;
-        try { bytes = InputFile.ReadBounded(path, "target.mesh", "mesh file", InputFile.MaxMeshBytes); }
-        catch (Exception e) when (e is FileNotFoundException or DirectoryNotFoundException)
-        { throw new JobError("target.mesh", $"mesh file not found: {path}"); }
-        catch (Exception e) when (e is IOException or UnauthorizedAccessException)
-        { throw new JobError("target.mesh", $"cannot read {path} ({e.Message})"); }
-        string name = Path.GetFileName(path);
-        var mesh = Path.GetExtension(path).Equals(".stl", StringComparison.OrdinalIgnoreCase)
-            ? StlMeshReader.Parse(bytes, name)
-            : ObjMeshReader.Parse(System.Text.Encoding.UTF8.GetString(bytes), name);
-        return new MeshSurface(mesh.Scaled(s), footprint, name);
     }
 }

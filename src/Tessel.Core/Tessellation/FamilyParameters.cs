@@ -9,7 +9,6 @@ namespace Tessel.Core.Tessellation;
 /// <param name="FoldDepth">Miura-type and waterbomb: distance between the two vertex layers, metres.</param>
 /// <param name="OrientationDeg">Miura-type: direction of the zig-zag on the footprint, degrees.</param>
 /// <param name="FlatDiagonalShare">Free net: share of grid cells kept as planar quad panels, [0, 1].</param>
-/// <param name="Grading">Reverse-curvature: relative growth of the zig-zag from centre to corner.</param>
 public sealed record FamilyParameters(
     int? CellsX = null,
     int? CellsY = null,
@@ -17,8 +16,7 @@ public sealed record FamilyParameters(
     double SectorAngleDeg = 60,
     double FoldDepth = 0.05,
     double OrientationDeg = 0,
-    double FlatDiagonalShare = 0,
-    double Grading = 0.3)
+    double FlatDiagonalShare = 0)
 {
     /// <summary>Ask the generator for a start that is exactly buildable on a plane where the family has
     /// one that differs from its usual drape (the fit's continuation starts from it).</summary>

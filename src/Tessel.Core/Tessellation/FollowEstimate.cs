@@ -1,6 +1,5 @@
 using System.Globalization;
 using Tessel.Core.Targets;
-using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Core.Tessellation;
 
@@ -54,7 +53,8 @@ public sealed record FollowEstimate(bool CanFollow, double TurnPerCell, double T
     {
         var fp = target.Footprint;
         double kappa = c.MaxAbsPrincipal;
-        if (family == "yoshimura" || !(kappa > 0)) return Fine(0, double.PositiveInfinity);
+        var descriptor = TessellationFamilies.Find(family);
+        if (descriptor is null || !(kappa > 0)) return Fine(0, double.PositiveInfinity);
         int cellsX, cellsY;
         try
         {
@@ -63,11 +63,11 @@ public sealed record FollowEstimate(bool CanFollow, double TurnPerCell, double T
         }
         catch (ArgumentException) { return Fine(0, double.PositiveInfinity); }
 
-        double? limit = Limit(family, fp, p with { CellsX = cellsX, CellsY = cellsY });
+        double? limit = Limit(descriptor, fp, p with { CellsX = cellsX, CellsY = cellsY });
         if (limit is not double lim) return Fine(0, double.PositiveInfinity);
         double cell = Math.Max(fp.Width / cellsX, fp.Depth / cellsY);
         double turn = kappa * cell;
-        bool depthTooDeep = family != "free-triangulated" && p.FoldDepth * kappa > MaxDepthOverRadius;
+        bool depthTooDeep = descriptor.HasFoldDepth && p.FoldDepth * kappa > MaxDepthOverRadius;
         if (turn <= lim && !depthTooDeep) return Fine(turn, lim);
 
         int? sx = null, sy = null;
@@ -79,7 +79,7 @@ public sealed record FollowEstimate(bool CanFollow, double TurnPerCell, double T
                 int nx = (int)Math.Ceiling(cellsX * m), ny = (int)Math.Ceiling(cellsY * m);
                 double d = depth ?? (depthScalesWithCells ? p.FoldDepth * Math.Min((double)cellsX / nx, (double)cellsY / ny) : p.FoldDepth);
                 double cell2 = Math.Max(fp.Width / nx, fp.Depth / ny);
-                if (Limit(family, fp, p with { CellsX = nx, CellsY = ny, FoldDepth = d }) is double l2 && kappa * cell2 <= Margin * l2)
+                if (Limit(descriptor, fp, p with { CellsX = nx, CellsY = ny, FoldDepth = d }) is double l2 && kappa * cell2 <= Margin * l2)
                 {
                     (sx, sy) = (nx, ny);
                     break;
@@ -106,26 +106,10 @@ public sealed record FollowEstimate(bool CanFollow, double TurnPerCell, double T
     private static FollowEstimate Fine(double turn, double limit) => new(true, turn, limit, null, null, null, null, null);
 
     /// <summary>The turn per cell the family allows with these parameters, or null where the parameters
-    /// make no cell (the generator reports that).</summary>
-    private static double? Limit(string family, Footprint fp, FamilyParameters p)
+    /// make no cell (the generator reports that) or the family is not judged.</summary>
+    private static double? Limit(TessellationFamily family, Footprint fp, FamilyParameters p)
     {
-        try
-        {
-            switch (family)
-            {
-                case "miura":
-                case "reverse-curvature":
-                    var (cell, _, _) = MiuraGenerator.ResolveCell(fp, new MiuraParameters(p.CellsX, p.CellsY, p.CellSize, p.SectorAngleDeg, p.FoldDepth, p.OrientationDeg));
-                    return cell.Theta;
-                case "waterbomb":
-                    double size = Math.Min(fp.Width / p.CellsX!.Value, fp.Depth / p.CellsY!.Value);
-                    return p.FoldDepth > 0 ? Math.Atan(2 * p.FoldDepth / size) : null;
-                case "free-triangulated":
-                    return NetTurnLimit;
-                default:
-                    return null;
-            }
-        }
+        try { return family.TurnLimit(fp, p); }
         catch (ArgumentException) { return null; }
     }
 }

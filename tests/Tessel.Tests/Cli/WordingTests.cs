@@ -87,8 +87,8 @@ public class WordingTests
         var accepted = Catalog.FoldMethods.Select(f => f.Name).ToHashSet();
         foreach (var m in Tessel.Core.Sheets.Materials.All)
         {
-            Assert.Contains(Catalog.JobValue(m.MountainMethod), accepted);
-            Assert.Contains(Catalog.JobValue(m.ValleyMethod), accepted);
+            Assert.Contains(Tessel.Core.Composition.JobVocabularyRegistration.JobValue(m.MountainMethod), accepted);
+            Assert.Contains(Tessel.Core.Composition.JobVocabularyRegistration.JobValue(m.ValleyMethod), accepted);
         }
     }
 

@@ -32,7 +32,7 @@ public class AdviceAgreementTests(ITestOutputHelper output)
     public void EveryFamilyTheAdviceCallsSuitedIsBuilt(string name, string targetJson)
     {
         int suited = 0;
-        foreach (var family in FamilyGenerators.Names)
+        foreach (var family in TessellationFamilies.Names)
         {
             var job = Job(targetJson, family, 6);
             var target = TargetStage.Run(job, null, ProgressReporter.Silent).Target;
@@ -96,7 +96,8 @@ public class AdviceAgreementTests(ITestOutputHelper output)
             }
         var map = HeightMapSurface.FromLevels(Footprint.Rectangle(4, 3), cols, rows, levels, 4, 3, 0, 0.6);
         Assert.True(FamilyAdvice.For("reverse-curvature", map).Suits);
-        var g = FamilyGenerators.Generate("reverse-curvature", map, new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.08, Grading: 0.6));
+        var g = Tessel.Core.Tessellation.ReverseCurvature.ReverseCurvatureGenerator.Generate(map,
+            new(new Tessel.Core.Tessellation.Miura.MiuraParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.08), Grading: 0.6));
         var fp = map.Footprint;
         int graded = 0;
         for (int v = 0; v < g.Mesh.VertexCount; v++)

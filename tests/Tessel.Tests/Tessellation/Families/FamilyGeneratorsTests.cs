@@ -16,7 +16,7 @@ public class FamilyGeneratorsTests
     public void EveryFamilyBuildsThroughTheDispatcher(string family, int faceCorners, FamilyConstraints constraints)
     {
         var vault = new CylinderSurface(Square, 2.0, 0.3);
-        var g = FamilyGenerators.Generate(family, vault, new FamilyParameters(CellsX: 4, CellsY: 4, FoldDepth: 0.03));
+        var g = TessellationFamilies.Generate(family, vault, new FamilyParameters(CellsX: 4, CellsY: 4, FoldDepth: 0.03));
         Assert.Equal(family, g.Mesh.Family);
         Assert.All(g.Mesh.Faces, f => Assert.Equal(faceCorners, f.Length));
         Assert.Equal(constraints, g.Constraints);
@@ -26,10 +26,10 @@ public class FamilyGeneratorsTests
     public void UnknownFamiliesSaySo()
     {
         var plane = new PlaneSurface(Square);
-        var ex = Assert.Throws<ArgumentException>(() => FamilyGenerators.Generate("egg-box", plane, new FamilyParameters(CellsX: 4, CellsY: 4)));
+        var ex = Assert.Throws<ArgumentException>(() => TessellationFamilies.Generate("egg-box", plane, new FamilyParameters(CellsX: 4, CellsY: 4)));
         Assert.Contains("free-triangulated", ex.Message);
         // Every family the job loader accepts is built.
-        Assert.Equal(Tessel.Core.Jobs.Catalog.Families.Select(f => f.Name).Order(), FamilyGenerators.Names.Order());
+        Assert.Equal(Tessel.Core.Jobs.Catalog.Families.Select(f => f.Name).Order(), TessellationFamilies.Names.Order());
     }
 
     [Fact]
@@ -56,6 +56,6 @@ public class FamilyGeneratorsTests
         Assert.True(FamilyAdvice.For("waterbomb", vault).Suits);
         Assert.False(FamilyAdvice.For("waterbomb", saddle).Suits);
         Assert.Equal("miura", FamilyAdvice.For("waterbomb", saddle).Better);
-        foreach (var f in FamilyGenerators.Names) Assert.StartsWith(f + ":", FamilyAdvice.Describe(f));
+        foreach (var f in TessellationFamilies.Names) Assert.StartsWith(f + ":", FamilyAdvice.Describe(f));
     }
 }

@@ -51,7 +51,7 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     {
         var data = new TheoryData<string, string>();
         foreach (var (name, target) in new (string, ITargetSurface)[] { ("ring", RingSector()), ("hexagon", HexSaddle()) })
-            foreach (var family in FamilyGenerators.Names)
+            foreach (var family in TessellationFamilies.Names)
                 if (FamilyAdvice.For(family, target).Suits) data.Add(name, family);
         return data;
     }
@@ -64,7 +64,7 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     {
         var target = Named(targetName);
         var fp = target.Footprint;
-        var g = FamilyGenerators.Generate(family, target, new FamilyParameters(CellsX: 8, CellsY: 8, FoldDepth: 0.06));
+        var g = TessellationFamilies.Generate(family, target, new FamilyParameters(CellsX: 8, CellsY: 8, FoldDepth: 0.06));
         var mesh = g.Mesh;
         for (int v = 0; v < mesh.VertexCount; v++)
         {
@@ -107,7 +107,7 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     [Fact]
     public void MiuraOnAPolygonIsCutNotClampedToTheBoundingBox()
     {
-        var g = FamilyGenerators.Generate("miura", HexSaddle(), new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.06));
+        var g = TessellationFamilies.Generate("miura", HexSaddle(), new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.06));
         // The hexagon leaves out four corner triangles of its 4.8 x 4.2 box, a quarter of the box's area;
         // the full sheet would have 12 x 12 facets.
         Assert.InRange(g.Mesh.FaceCount, 60, 144 * 3 / 4);
@@ -121,7 +121,7 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     {
         // 0.7 / 7 is not exact in binary, so min + 7 x step lands an ulp past the border.
         var plane = new PlaneSurface(Footprint.Rectangle(0.7, 0.3));
-        var g = FamilyGenerators.Generate("free-triangulated", plane, new FamilyParameters(CellsX: 7, CellsY: 3));
+        var g = TessellationFamilies.Generate("free-triangulated", plane, new FamilyParameters(CellsX: 7, CellsY: 3));
         Assert.Equal(2 * 7 * 3, g.Mesh.FaceCount);
         Assert.Equal(8 * 4, g.Mesh.VertexCount);
     }
@@ -133,7 +133,7 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     public void CutPatternsFitToTheConstraints(string family, string targetName, double rmsBand)
     {
         var target = Named(targetName);
-        var g = FamilyGenerators.Generate(family, target, new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.1));
+        var g = TessellationFamilies.Generate(family, target, new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.1));
         var r = MultiStartFitter.Fit(g, target, new FitSettings { Seed = 1 }, EpsilonConstraintFitter.DefaultSolver);
         output.WriteLine($"{targetName}/{family}: {r.StopReason}, {r.History.Count} steps, residual {r.Residuals.MaxConstraintViolation:E2}, RMS {r.Shape.Rms * 1e3:F2} mm");
         Assert.InRange(r.Residuals.MaxConstraintViolation, 0, 1e-9);
