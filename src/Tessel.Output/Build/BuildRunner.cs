@@ -9,6 +9,7 @@ using Tessel.Core.Unfolding;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
 using Tessel.Output.Report;
+using Tessel.Output.Sheets;
 using Tessel.Output.Writers;
 
 namespace Tessel.Output.Build;
@@ -119,7 +120,7 @@ public static class BuildRunner
             warnings.Add($"the rigid folding path did not reach the flat sheet ({checks.Path.StopTowardFlat})");
 
         SheetStageResult? sheets = null;
-        if (job.Outputs.Svg || job.Outputs.Dxf || job.Outputs.Pdf || job.Outputs.Png)
+        if (SheetFormats.All.Any(f => f.IsWanted(job.Outputs)))
         {
             try
             {
