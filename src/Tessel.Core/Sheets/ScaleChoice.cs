@@ -81,7 +81,7 @@ public static class ScaleChooser
     /// <summary>Narrowest facet of the flat pattern, metres (the smallest width over facets: the least,
     /// over a facet's edges, of the farthest vertex from that edge's line).</summary>
     public static double NarrowestFacetMetres(FlatPattern flat) =>
-        flat.Folded.Faces.Min(f => SheetLayout.MinimumWidth(f.Select(flat.Vertex).ToArray()));
+        flat.Folded.Faces.Min(f => PolygonMeasures.MinimumWidth(f.Select(flat.Vertex).ToArray()));
 
     private static double FacetAreaSquareMetres(FlatPattern flat) =>
         flat.Folded.Faces.Sum(f =>
