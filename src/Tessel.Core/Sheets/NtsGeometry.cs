@@ -15,7 +15,7 @@ internal static class NtsGeometry
     public static readonly GeometryFactory Factory = new(new PrecisionModel(PrecisionModels.Floating));
 
     /// <summary>Grid of the fallback overlay: 0.1 micrometre (coordinates are mm), a thousandth of the finest
-    /// laser spot or kerf (fabrication.md: 0.1-0.3 mm), so snapping never shows on a sheet.</summary>
+    /// laser spot or kerf (docs/reference/fabrication.md: 0.1-0.3 mm), so snapping never shows on a sheet.</summary>
     public static readonly PrecisionModel Snap = new(1e4);
 
     /// <summary>A polygon from an open ring (the closing point is added).</summary>
@@ -55,6 +55,21 @@ internal static class NtsGeometry
     /// gap between pieces.</summary>
     public static NtsShape UnionSnapped(IEnumerable<NtsShape> shapes) =>
         UnaryUnionNG.Union(Factory.BuildGeometry(shapes.Select(Repaired).Where(g => !g.IsEmpty).ToArray()), Snap);
+
+    /// <summary>Union of faces that share whole edges with identical end points (a polygon coverage): the
+    /// coverage union only merges the shared edges, which is far faster than a general overlay; a general
+    /// union is the fallback should the faces not form a clean coverage.</summary>
+    public static NtsShape UnionOfFaces(Polygon[] faces)
+    {
+        var collection = Factory.CreateMultiPolygon(faces);
+        try
+        {
+            var union = NetTopologySuite.Operation.OverlayNG.CoverageUnion.Union(collection);
+            if (union is Polygon && union.IsValid) return union;
+        }
+        catch (TopologyException) { }
+        return Union(faces);
+    }
 
     /// <summary>True when the shapes meet; on a topology conflict the test is repeated on repaired shapes,
     /// and a pair that still cannot be decided counts as meeting.</summary>

@@ -24,7 +24,7 @@ public static class ScaleChooser
     public static IReadOnlyList<double> CommonScales { get; } = [1, 2, 5, 10, 20, 25, 50, 100, 200, 500];
 
     /// <summary>Facets narrower than this many material thicknesses are too narrow to fold cleanly
-    /// (fabrication.md: warn below 10 t; value from memory).</summary>
+    /// (docs/reference/fabrication.md: warn below 10 t; value from memory).</summary>
     public const double MinFacetThicknesses = 10;
 
     /// <param name="flat">The flat pattern, metres at full scale.</param>
@@ -81,7 +81,7 @@ public static class ScaleChooser
     /// <summary>Narrowest facet of the flat pattern, metres (the smallest width over facets: the least,
     /// over a facet's edges, of the farthest vertex from that edge's line).</summary>
     public static double NarrowestFacetMetres(FlatPattern flat) =>
-        flat.Folded.Faces.Min(f => SheetLayout.MinimumWidth(f.Select(flat.Vertex).ToArray()));
+        flat.Folded.Faces.Min(f => PolygonMeasures.MinimumWidth(f.Select(flat.Vertex).ToArray()));
 
     private static double FacetAreaSquareMetres(FlatPattern flat) =>
         flat.Folded.Faces.Sum(f =>

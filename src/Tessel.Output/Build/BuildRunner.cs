@@ -4,6 +4,7 @@ using Tessel.Core.Targets;
 using Tessel.Output.IO;
 using Tessel.Output.Previews;
 using Tessel.Output.Report;
+using Tessel.Output.Sheets;
 using Tessel.Output.Writers;
 
 namespace Tessel.Output.Build;

@@ -1,5 +1,4 @@
 using System.Globalization;
-using System.Text;
 using Tessel.Core.Checks;
 using Tessel.Core.Geometry;
 using Tessel.Core.Jobs;
@@ -12,11 +11,11 @@ using Tessel.Core.Unfolding;
 using Tessel.Output.Report;
 using Tessel.Output.Sheets;
 using Tessel.Output.Writers;
-using FitPareto = Tessel.Core.Fitting.ParetoPoint;
 
 namespace Tessel.Output.Build;
 
-/// <summary>Turns the results of the model stages (fit, checks, sheets) into files and figures.</summary>
+/// <summary>Turns the results of the model stages (fit, checks, sheets) into figures, and hands them to
+/// the writers (<c>Writers/</c>, <see cref="SheetFormats"/>) for files; it lays nothing out itself.</summary>
 public static class ModelOutputs
 {
     private static readonly CultureInfo Inv = CultureInfo.InvariantCulture;
@@ -69,10 +68,10 @@ public static class ModelOutputs
                 output.AddFigure("pareto", $"shapeRmsM[{i}]", p.ShapeRms);
                 output.AddFigure("pareto", $"converged[{i}]", p.Converged);
             }
-            output.AddFile("pareto.csv", ParetoCsv(stage.Front));
+            output.AddFile("pareto.csv", ParetoCsvWriter.Write(stage.Front));
         }
         if (job.Outputs.Obj)
-            output.AddFile("folded.obj", FoldedObj(mesh, $"Tessel folded model for job {job.Name}: {mesh.Family}, metres, z up"));
+            output.AddFile("folded.obj", FoldedModelObjWriter.Write(mesh, $"Tessel folded model for job {job.Name}: {mesh.Family}, metres, z up"));
         if (job.Outputs.Stl)
             output.AddFile("folded.stl", StlWriter.ToBytes(mesh, job.Fabrication.Scale));
     }
@@ -117,9 +116,9 @@ public static class ModelOutputs
             output.AddFigure("checks", "envelopePositiveVertices", (long)envelope.Positive);
             output.AddFigure("checks", "envelopeInteriorVertices", (long)envelope.Interior);
         }
-        output.AddFile("fold-angles.csv", Encoding.UTF8.GetBytes(Core.Checks.FoldAngleTable.ToCsv(checks.FoldAngles)));
+        output.AddFile("fold-angles.csv", FoldAngleCsvWriter.Write(checks.FoldAngles));
         if (job.Outputs.Svg)
-            output.AddFile("crease-pattern.svg", CreasePatternSvg(checks.Flat, job));
+            output.AddFile("crease-pattern.svg", CreasePatternSvgWriter.Write(checks.Flat, job.Fabrication.Scale, job.Name, SheetStage.StylesFor(job)));
     }
 
     public static void AddSheets(BuildOutput output, Job job, SheetStageResult sheets)
@@ -143,106 +142,17 @@ public static class ModelOutputs
         output.AddFigure("sheets", "overlappingTabs", (long)fig.OverlappingTabCount);
         for (int i = 0; i < fig.Warnings.Length; i++) output.AddFigure("sheets", $"warning[{i}]", fig.Warnings[i]);
 
-        foreach (string format in SheetWriterFormats.Names)
+        // A sheet too large for a 300 dpi raster is written at a lower resolution (the job loader has
+        // refused sheets that no resolution fits).
+        var options = new SheetWriterOptions(job.Name, SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi);
+        foreach (var format in SheetFormats.All)
         {
-            bool wanted = format switch { "svg" => job.Outputs.Svg, "dxf" => job.Outputs.Dxf, "pdf" => job.Outputs.Pdf, _ => job.Outputs.Png };
-            if (!wanted) continue;
-            // A sheet too large for a 300 dpi raster is written at a lower resolution (the job loader has
-            // refused sheets that no resolution fits).
-            var writer = SheetWriterFormats.Create(format, SheetLimits.PngDpi(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) ?? SheetLimits.PreferredPngDpi);
-            // Files for a printer get the print weights; files for a cutter keep hairlines.
-            var styles = format is "pdf" or "png" ? sheets.PrintStyles : sheets.Styles;
-            if (writer.OneFilePerSheet)
-            {
-                if (format != "dxf") output.AddFile($"sheets/cover{writer.FileExtension}", Bytes(writer, [sheets.Cover], styles));
-                foreach (var sheet in sheets.Sheets)
-                    output.AddFile($"sheets/{SheetFileName(sheet)}{writer.FileExtension}", Bytes(writer, [sheet], styles));
-            }
-            else
-            {
-                var pdf = new PdfSheetWriter { Title = $"Tessel sheets: {job.Name}" };
-                output.AddFile("sheets/sheets.pdf", Bytes(pdf, [sheets.Cover, .. sheets.Sheets], styles));
-            }
+            if (!format.IsWanted(job.Outputs)) continue;
+            var writer = format.CreateWriter(options);
+            var styles = format.ForPrinting ? sheets.PrintStyles : sheets.Styles;
+            foreach (var (path, onFile) in format.Files(sheets.Cover, sheets.Sheets))
+                output.AddFile(path, SheetWriterBytes.Of(writer, onFile, styles));
         }
-    }
-
-    /// <summary>"sheet-01" for a front job, "sheet-01-back" for the mirrored back job.</summary>
-    public static string SheetFileName(Sheet sheet) => SheetFiles.BaseName(sheet);
-
-    private static byte[] Bytes(ISheetWriter writer, IReadOnlyList<Sheet> sheets, LineStyleTable styles)
-    {
-        using var ms = new MemoryStream();
-        writer.Write(sheets, styles, ms);
-        return ms.ToArray();
-    }
-
-    private static byte[] ParetoCsv(IReadOnlyList<FitPareto> front)
-    {
-        var sb = new StringBuilder("epsilon_deg,shape_rms_m,shape_max_m,objective,max_developability_rad,max_kawasaki_rad,max_planarity,converged\n");
-        foreach (var p in front)
-            sb.Append(string.Join(",", new[] { p.EpsilonDeg, p.ShapeRms, p.ShapeMax, p.Objective, p.MaxDevelopability, p.MaxKawasaki, p.MaxPlanarity }
-                .Select(v => v.ToString("R", Inv)))).Append(',').Append(p.Converged ? "true" : "false").Append('\n');
-        return Encoding.UTF8.GetBytes(sb.ToString());
-    }
-
-    /// <summary>OBJ with the panels as faces in one group and the creases as polylines (l) in a group per role.</summary>
-    private static byte[] FoldedObj(CreaseMesh mesh, string comment)
-    {
-        var faces = ObjWriter.Write(mesh.Positions, mesh.Faces, [new ObjWriter.Group("panels", Enumerable.Range(0, mesh.FaceCount).ToArray())], comment);
-        var sb = new StringBuilder(Encoding.UTF8.GetString(faces));
-        foreach (var role in new[] { CreaseRole.Mountain, CreaseRole.Valley, CreaseRole.Flat, CreaseRole.Boundary })
-        {
-            var edges = Enumerable.Range(0, mesh.EdgeCount).Where(e => mesh.EdgeRoles[e] == role).ToArray();
-            if (edges.Length == 0) continue;
-            sb.Append("g ").Append(role.ToString().ToLowerInvariant()).Append('\n');
-            foreach (int e in edges)
-                sb.Append("l ").Append(mesh.EdgeVertices[2 * e] + 1).Append(' ').Append(mesh.EdgeVertices[2 * e + 1] + 1).Append('\n');
-        }
-        return Encoding.UTF8.GetBytes(sb.ToString());
-    }
-
-    /// <summary>The whole flat crease pattern at model scale on one true-size sheet with a 10 mm border:
-    /// boundary as cut, mountain and valley in their own layers.</summary>
-    /// <summary>Narrowest legend strip of the crease-pattern drawing (the title, print check and legend
-    /// blocks side by side need about this much at the sheets' text height).</summary>
-    private const double MinimumLegendWidthMm = 240;
-
-    private static byte[] CreasePatternSvg(FlatPattern flat, Job job)
-    {
-        double k = 1000.0 / job.Fabrication.Scale, border = 10;
-        // Turned onto its minimum-area rectangle, wider than tall, as the sheets turn their parts.
-        var points = Enumerable.Range(0, flat.VertexCount).Select(flat.Vertex).ToArray();
-        var box = MinimumAreaRectangle.Of(MinimumAreaRectangle.ConvexHull(points));
-        double angle = box.Width >= box.Height ? box.Angle : box.Angle + Math.PI / 2;
-        var turned = points.Select(p => p.Rotated(angle)).ToArray();
-        double minX = turned.Min(p => p.X), maxX = turned.Max(p => p.X), minY = turned.Min(p => p.Y), maxY = turned.Max(p => p.Y);
-        Vec2 At(int v) { var p = turned[v]; return new Vec2((p.X - minX) * k + border, (maxY - p.Y) * k + border); }
-        var lines = new List<SheetLine>();
-        for (int e = 0; e < flat.EdgeCount; e++)
-        {
-            var cls = flat.Role(e) switch
-            {
-                CreaseRole.Mountain => LineClass.Mountain,
-                CreaseRole.Valley => LineClass.Valley,
-                CreaseRole.Boundary => LineClass.CutOutline,
-                CreaseRole.Flat => LineClass.FlatCrease,
-                _ => (LineClass?)null,
-            };
-            if (cls is null) continue;
-            var (a, b) = flat.Edge(e);
-            lines.Add(new SheetLine(cls.Value, [At(a), At(b)]));
-        }
-        // A legend strip under the pattern (title, print check, line legend), at least wide enough for it.
-        var styles = SheetStage.StylesFor(job);
-        var content = new AnnotationContent(job.Name, 1, $"1:{job.Fabrication.Scale:0.###}", IncludeCautions: false,
-            Heading: "CREASE PATTERN OF THE WHOLE MODEL - A DRAWING, NOT A SHEET TO CUT");
-        double width = Math.Max((maxX - minX) * k + 2 * border, MinimumLegendWidthMm + 2 * border);
-        var classes = lines.Select(l => l.Class).Distinct().ToArray();
-        double strip = SheetAnnotations.RequiredStripHeight(width - 2 * border, content, styles, classes);
-        double patternBottom = (maxY - minY) * k + border;
-        var sheet = new Sheet(1, width, patternBottom + border + strip + border, lines.ToArray());
-        sheet = SheetAnnotations.AddToStrip(sheet, new SheetRegion(border, patternBottom + border, width - 2 * border, strip), content, styles).Sheet;
-        return Bytes(new SvgSheetWriter(), [sheet], styles);
     }
 
     /// <summary>Signed distance of each vertex from the surface its layer belongs on (metres).</summary>

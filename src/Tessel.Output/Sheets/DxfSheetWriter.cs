@@ -19,11 +19,15 @@ namespace Tessel.Output.Sheets;
 /// </remarks>
 public sealed class DxfSheetWriter : ISheetWriter
 {
-    /// <inheritdoc/>
-    public string FileExtension => ".dxf";
+    /// <summary>DXF sheets for cutters. The cover is a guide to read, not a job to cut, so it has no DXF.</summary>
+    public static SheetFormat Format { get; } = new("dxf", ".dxf", "dxf", o => o.Dxf,
+        CarriesCover: false, OneFilePerSheet: true, ForPrinting: false, _ => new DxfSheetWriter());
 
     /// <inheritdoc/>
-    public bool OneFilePerSheet => true;
+    public string FileExtension => Format.FileExtension;
+
+    /// <inheritdoc/>
+    public bool OneFilePerSheet => Format.OneFilePerSheet;
 
     /// <inheritdoc/>
     public void Write(IReadOnlyList<Sheet> sheets, LineStyleTable styles, Stream output) =>

@@ -18,11 +18,16 @@ public sealed class PdfSheetWriter : ISheetWriter
     /// <summary>Points per millimetre: 72 pt per inch / 25.4 mm per inch.</summary>
     public const double PointsPerMm = 72.0 / 25.4;
 
-    /// <inheritdoc/>
-    public string FileExtension => ".pdf";
+    /// <summary>One PDF of the cover and every sheet, for printing at true size.</summary>
+    public static SheetFormat Format { get; } = new("pdf", ".pdf", "pdf", o => o.Pdf,
+        CarriesCover: true, OneFilePerSheet: false, ForPrinting: true,
+        o => o.JobName is null ? new PdfSheetWriter() : new PdfSheetWriter { Title = $"Tessel sheets: {o.JobName}" });
 
     /// <inheritdoc/>
-    public bool OneFilePerSheet => false;
+    public string FileExtension => Format.FileExtension;
+
+    /// <inheritdoc/>
+    public bool OneFilePerSheet => Format.OneFilePerSheet;
 
     /// <summary>Document title written into the PDF metadata.</summary>
     public string Title { get; init; } = "Tessel fabrication sheets";

@@ -34,11 +34,15 @@ public sealed class PngSheetWriter : ISheetWriter
     /// <summary>Pixels per metre written into pHYs: round(dpi / 0.0254).</summary>
     public uint PixelsPerMetre => (uint)Math.Round(Dpi / 0.0254, MidpointRounding.AwayFromZero);
 
-    /// <inheritdoc/>
-    public string FileExtension => ".png";
+    /// <summary>PNG sheets for printing and previews; the dpi comes from the build (large sheets get less).</summary>
+    public static SheetFormat Format { get; } = new("png", ".png", "png", o => o.Png,
+        CarriesCover: true, OneFilePerSheet: true, ForPrinting: true, o => new PngSheetWriter(o.PngDpi));
 
     /// <inheritdoc/>
-    public bool OneFilePerSheet => true;
+    public string FileExtension => Format.FileExtension;
+
+    /// <inheritdoc/>
+    public bool OneFilePerSheet => Format.OneFilePerSheet;
 
     /// <summary>Pixel size of <paramref name="sheet"/> at this resolution.</summary>
     public (int Width, int Height) PixelSize(Sheet sheet) =>

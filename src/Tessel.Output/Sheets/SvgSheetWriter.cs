@@ -10,11 +10,15 @@ namespace Tessel.Output.Sheets;
 /// fills; labels are already stroke-font polylines and are written as paths like every other line.</summary>
 public sealed class SvgSheetWriter : ISheetWriter
 {
-    /// <inheritdoc/>
-    public string FileExtension => ".svg";
+    /// <summary>SVG sheets for cutters and viewers, cover included, cutter hairlines.</summary>
+    public static SheetFormat Format { get; } = new("svg", ".svg", "svg", o => o.Svg,
+        CarriesCover: true, OneFilePerSheet: true, ForPrinting: false, _ => new SvgSheetWriter());
 
     /// <inheritdoc/>
-    public bool OneFilePerSheet => true;
+    public string FileExtension => Format.FileExtension;
+
+    /// <inheritdoc/>
+    public bool OneFilePerSheet => Format.OneFilePerSheet;
 
     /// <inheritdoc/>
     public void Write(IReadOnlyList<Sheet> sheets, LineStyleTable styles, Stream output) =>

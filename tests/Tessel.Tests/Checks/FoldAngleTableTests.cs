@@ -27,14 +27,6 @@ public class FoldAngleTableTests
     }
 
     [Fact]
-    public void CsvHasFixedDecimalsAndInvariantNumbers()
-    {
-        var rows = new[] { new FoldAngleRow(7, 2, 5, CreaseRole.Valley, 0.8, 16.0, -80.00049) };
-        var csv = FoldAngleTable.ToCsv(rows);
-        Assert.Equal("edge,v0,v1,role,length_m,model_length_mm,fold_angle_deg\n7,2,5,valley,0.800000,16.000,-80.000\n", csv);
-    }
-
-    [Fact]
     public void RejectsNonPositiveScale()
     {
         Assert.Throws<ArgumentOutOfRangeException>(() => FoldAngleTable.Build(CheckMeshes.Miura(1, 1), 0));

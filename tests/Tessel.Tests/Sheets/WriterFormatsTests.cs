@@ -13,7 +13,7 @@ public class WriterFormatsTests
     [InlineData(" png ", ".png", true)]
     public void Formats_resolve_to_writers_with_the_right_extension(string name, string extension, bool onePerSheet)
     {
-        ISheetWriter writer = SheetWriterFormats.Create(name, pngDpi: 30);
+        ISheetWriter writer = SheetFormats.Create(name, pngDpi: 30);
         Assert.Equal(extension, writer.FileExtension);
         Assert.Equal(onePerSheet, writer.OneFilePerSheet);
     }
@@ -21,7 +21,7 @@ public class WriterFormatsTests
     [Fact]
     public void Unknown_format_is_refused_with_the_known_names()
     {
-        var e = Assert.Throws<ArgumentException>(() => SheetWriterFormats.Create("eps"));
+        var e = Assert.Throws<ArgumentException>(() => SheetFormats.Create("eps"));
         Assert.Contains("svg, dxf, pdf, png", e.Message);
     }
 
@@ -29,9 +29,9 @@ public class WriterFormatsTests
     public void Every_writer_is_deterministic_and_single_sheet_writers_refuse_two()
     {
         Sheet a4 = WriterTestSheets.A4WithEveryClass(), small = WriterTestSheets.SmallWithOneLine();
-        foreach (string name in SheetWriterFormats.Names)
+        foreach (string name in SheetFormats.Names)
         {
-            ISheetWriter writer = SheetWriterFormats.Create(name, pngDpi: 30);
+            ISheetWriter writer = SheetFormats.Create(name, pngDpi: 30);
             byte[] Once()
             {
                 using var ms = new MemoryStream();
@@ -50,9 +50,9 @@ public class WriterFormatsTests
     public void Sheets_without_a_size_or_with_non_finite_points_are_refused()
     {
         var bad = new Sheet(1, 100, 50, [new SheetLine(LineClass.Valley, [new(0, 0), new(double.NaN, 1)])]);
-        foreach (string name in SheetWriterFormats.Names)
+        foreach (string name in SheetFormats.Names)
         {
-            ISheetWriter writer = SheetWriterFormats.Create(name, pngDpi: 30);
+            ISheetWriter writer = SheetFormats.Create(name, pngDpi: 30);
             Assert.Throws<ArgumentException>(() => writer.Write([bad], LineStyleTable.Default, new MemoryStream()));
             Assert.Throws<ArgumentException>(() => writer.Write([new Sheet(1, 0, 50, [])], LineStyleTable.Default, new MemoryStream()));
         }
