@@ -4,7 +4,7 @@ using Tessel.Core.Tessellation;
 namespace Tessel.Core.Sheets;
 
 /// <summary>Everything the sheet stage needs besides the flat pattern. Lengths in mm at model scale
-/// unless named otherwise. Defaults are starting values (fabrication.md, [M]).</summary>
+/// unless named otherwise. Defaults are starting values (docs/reference/fabrication.md, [M]).</summary>
 public sealed record FabricationSettings
 {
     /// <summary>n of the model scale 1:n (100 means 1 m full scale becomes 10 mm).</summary>
@@ -47,7 +47,7 @@ public sealed record FabricationSettings
     public bool LabelsOnBack { get; init; }
 
     /// <summary>Which way the stock's grain runs; parts are then turned so their longest crease family
-    /// follows it ([CP], fabrication.md), where they fit that way.</summary>
+    /// follows it ([CP], docs/reference/fabrication.md), where they fit that way.</summary>
     public GrainDirection Grain { get; init; } = GrainDirection.Any;
 
     /// <summary>Least distance between two parts' cut outlines.</summary>

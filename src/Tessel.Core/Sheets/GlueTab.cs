@@ -3,7 +3,7 @@ using Tessel.Core.Geometry;
 namespace Tessel.Core.Sheets;
 
 /// <summary>A glue tab along one seam edge: a trapezoid on the edge's outer side, lying over the mating
-/// facet once folded (fabrication.md, "Glue tabs" [CP/M]).</summary>
+/// facet once folded (docs/reference/fabrication.md, "Glue tabs" [CP/M]).</summary>
 /// <param name="Polygon">Open ring in mm: the two ends of the root on the seam edge first, then the far side.</param>
 /// <param name="FoldFrom">Start of the tab's fold line.</param>
 /// <param name="FoldTo">End of the tab's fold line.</param>

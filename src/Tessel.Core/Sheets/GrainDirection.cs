@@ -1,7 +1,7 @@
 namespace Tessel.Core.Sheets;
 
 /// <summary>Direction of the paper or card grain on the sheet: long crease families fold more cleanly
-/// along it (common practice, fabrication.md [CP]).</summary>
+/// along it (common practice, docs/reference/fabrication.md [CP]).</summary>
 public enum GrainDirection
 {
     /// <summary>No preference: parts turn freely to pack best.</summary>

@@ -1,11 +1,11 @@
 namespace Tessel.Core.Sheets;
 
-/// <summary>Material presets. Names are ours; values are starting values from fabrication.md tagged
+/// <summary>Material presets. Names are ours; values are starting values from docs/reference/fabrication.md tagged
 /// [M] (from memory): test them on offcuts before a real job.</summary>
 public static class Materials
 {
     // Mountain folds scored on the front: the scored side ends up convex, and a mountain's convex side is
-    // the top side. Valleys are convex on the back, so card scores them from the back ([CP], fabrication.md).
+    // the top side. Valleys are convex on the back, so card scores them from the back ([CP], docs/reference/fabrication.md).
 
     /// <summary>220 gsm card, t ~ 0.28 mm (gsm/1000 x 1.1-1.5 [M]); perforation 3 / 0.7 mm [M].</summary>
     public static readonly Material LightCard = new(

@@ -15,7 +15,7 @@ internal static class NtsGeometry
     public static readonly GeometryFactory Factory = new(new PrecisionModel(PrecisionModels.Floating));
 
     /// <summary>Grid of the fallback overlay: 0.1 micrometre (coordinates are mm), a thousandth of the finest
-    /// laser spot or kerf (fabrication.md: 0.1-0.3 mm), so snapping never shows on a sheet.</summary>
+    /// laser spot or kerf (docs/reference/fabrication.md: 0.1-0.3 mm), so snapping never shows on a sheet.</summary>
     public static readonly PrecisionModel Snap = new(1e4);
 
     /// <summary>A polygon from an open ring (the closing point is added).</summary>

@@ -14,7 +14,7 @@ public enum PerforationKind
 /// <summary>Cuts along a crease of length L as parameter intervals [Start, End] in mm from its first end.</summary>
 public sealed record PerforationPlan(PerforationKind Kind, (double Start, double End)[] Cuts);
 
-/// <summary>Lays out perforation dashes (fabrication.md [CP/M]): every crease starts and ends with at least
+/// <summary>Lays out perforation dashes (docs/reference/fabrication.md [CP/M]): every crease starts and ends with at least
 /// a half bridge, keeps an uncut zone around each end vertex, and keeps the material's exact cut and bridge
 /// lengths; what is left over is split evenly between the two ends.</summary>
 public static class Perforation

@@ -24,7 +24,7 @@ public static class ScaleChooser
     public static IReadOnlyList<double> CommonScales { get; } = [1, 2, 5, 10, 20, 25, 50, 100, 200, 500];
 
     /// <summary>Facets narrower than this many material thicknesses are too narrow to fold cleanly
-    /// (fabrication.md: warn below 10 t; value from memory).</summary>
+    /// (docs/reference/fabrication.md: warn below 10 t; value from memory).</summary>
     public const double MinFacetThicknesses = 10;
 
     /// <param name="flat">The flat pattern, metres at full scale.</param>

@@ -5,7 +5,7 @@ namespace Tessel.Core.Sheets;
 /// <summary>Named sheet sizes (portrait, width x height in mm) and a parser for user input.</summary>
 public static class SheetSizes
 {
-    // ISO 216 A and B series, mm (fabrication.md, [S] ISO 216).
+    // ISO 216 A and B series, mm (docs/reference/fabrication.md, [S] ISO 216).
     public static readonly SheetSize A0 = new("A0", 841, 1189);
     public static readonly SheetSize A1 = new("A1", 594, 841);
     public static readonly SheetSize A2 = new("A2", 420, 594);
@@ -23,7 +23,7 @@ public static class SheetSizes
     public static readonly SheetSize Letter = new("Letter", 215.9, 279.4);
     public static readonly SheetSize Tabloid = new("Tabloid", 279.4, 431.8);
 
-    // Laser beds: our own names; sizes are typical ranges from fabrication.md [M], landscape as the bed sits.
+    // Laser beds: our own names; sizes are typical ranges from docs/reference/fabrication.md [M], landscape as the bed sits.
     public static readonly SheetSize DeskBed = new("desk-bed", 500, 300);
     public static readonly SheetSize ShopBed = new("shop-bed", 600, 400);
     public static readonly SheetSize StudioBed = new("studio-bed", 900, 600);

@@ -18,7 +18,7 @@ public enum HingeSide
 /// <param name="BoardThicknessMm">Board thickness t at model scale.</param>
 /// <param name="Hinge">Face the hinge layer is on.</param>
 /// <param name="InsideGapMm">Gap between boards where the hinge is on the inside of the fold
-/// (0.3-0.5 mm, fabrication.md [M]).</param>
+/// (0.3-0.5 mm, docs/reference/fabrication.md [M]).</param>
 public sealed record ThickPanelSettings(double BoardThicknessMm, HingeSide Hinge = HingeSide.Top, double InsideGapMm = 0.4);
 
 /// <summary>Board panels for every facet, on the same sheets and in the same place as the crease layout.</summary>
@@ -29,7 +29,7 @@ public sealed record ThickPanelSettings(double BoardThicknessMm, HingeSide Hinge
 /// <param name="Warnings">Facets that vanish at this board thickness.</param>
 public sealed record ThickPanelResult(Sheet[] Sheets, Vec2[][] Panels, double[] EdgeGapMm, string[] Warnings);
 
-/// <summary>Square-edged thick panels (fabrication.md "Thick panels"; Lang et al., Appl. Mech. Rev. 70(1),
+/// <summary>Square-edged thick panels (docs/reference/fabrication.md "Thick panels"; Lang et al., Appl. Mech. Rev. 70(1),
 /// 2018): where the hinge lies on the outside of a fold of angle rho the boards must stand
 /// g = 2 t sin(rho/2) apart on the hinge face, so each board's edge moves back g/2; where it lies on the
 /// inside a small fixed gap suffices (also the least gap used on the outside, for nearly flat folds). Each facet's panel is its polygon with a strip of its own setback

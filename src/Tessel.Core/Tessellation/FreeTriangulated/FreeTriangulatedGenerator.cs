@@ -19,7 +19,7 @@ namespace Tessel.Core.Tessellation.FreeTriangulated;
 /// The start is crumpled: interior vertices sit off the target along its normal by normal deviates of standard deviation
 /// <see cref="FreeTriangulatedParameters.Crumple"/> cell sizes. On a smooth star the angle sum is at a
 /// maximum over normal motions of the centre, so the developability residual has no useful gradient
-/// there (the same trap as the facet-angle planarity test in geometry.md section 1); measured on a
+/// there (the same trap as the facet-angle planarity test in docs/reference/geometry.md section 1); measured on a
 /// 6 x 6 net on a cap, a start within 0.02 cells of the target did not reach developability in 300
 /// steps while a 0.1-cell crumple converged to 2e-14 rad.
 /// With planar quad panels (share &gt; 0) a random crumple is a trap of its own: a degree-4 vertex

@@ -4,7 +4,7 @@ using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Core.Tessellation.ReverseCurvature;
 
-/// <summary>Reverse-curvature family (geometry.md section 3): developable, Kawasaki-satisfying degree-4
+/// <summary>Reverse-curvature family (docs/reference/geometry.md section 3): developable, Kawasaki-satisfying degree-4
 /// quad tessellations whose folded envelope is synclastic (K &gt; 0), the opposite sign to a bent uniform
 /// Miura sheet (Wei et al., PRL 110, 2013). Made here as a Miura sheet (Schenk &amp; Guest 2013 cell)
 /// whose zig-zag offset grows from the centre outward, draped on the dome with the two-layer offset of

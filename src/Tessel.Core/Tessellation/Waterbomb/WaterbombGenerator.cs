@@ -5,7 +5,7 @@ using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Core.Tessellation.Waterbomb;
 
-/// <summary>The waterbomb tessellation (J. Comput. Des. Eng. 5(4), 2018, via geometry.md section 3):
+/// <summary>The waterbomb tessellation (J. Comput. Des. Eng. 5(4), 2018, via docs/reference/geometry.md section 3):
 /// waterbomb bases (a degree-6 vertex: four diagonals and the two halves of a midline) side by side in
 /// rows along x, every other row shifted by half a base, all facets triangles.</summary>
 /// <remarks>
