@@ -4,7 +4,7 @@ using Tessel.Core.Tessellation;
 namespace Tessel.Core.Checks;
 
 /// <summary>Discrete Gaussian curvature of a pattern's envelope: its angle defects at interior envelope
-/// vertices (Gauss-Bonnet, geometry.md section 6). Positive everywhere means synclastic (dome-like).</summary>
+/// vertices (Gauss-Bonnet, docs/reference/geometry.md section 6). Positive everywhere means synclastic (dome-like).</summary>
 public sealed record EnvelopeCurvature(double MinDefect, double MaxDefect, double TotalDefect, int Positive, int Interior)
 {
     /// <summary>The figures of an envelope mesh, or null when it has no interior vertex.</summary>

@@ -9,7 +9,7 @@ namespace Tessel.Core.Checks;
 public static class FlatLayoutStrain
 {
     /// <summary>Default material limit 0.08 % (0.0008): well under the 0.3-0.5 % where card takes a
-    /// permanent set (geometry.md section 7, values from memory).</summary>
+    /// permanent set (docs/reference/geometry.md section 7, values from memory).</summary>
     public const double DefaultStrainLimit = 0.0008;
 
     /// <summary>Measures the strain of every facet of <paramref name="flat"/> against its folded mesh.</summary>
@@ -42,7 +42,7 @@ public static class FlatLayoutStrain
 
     /// <summary>#V |2 pi - sum of sector angles| / (2 pi) at interior vertices of the folded mesh, 0 on the boundary:
     /// the in-plane strain needed to flatten a vertex whose angle residual is concentrated at it (derived here,
-    /// geometry.md section 7).</summary>
+    /// docs/reference/geometry.md section 7).</summary>
     public static double[] VertexAngleStrain(CreaseMesh mesh)
     {
         var angleSum = new double[mesh.VertexCount];

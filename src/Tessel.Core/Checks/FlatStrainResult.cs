@@ -8,7 +8,7 @@ namespace Tessel.Core.Checks;
 /// <param name="StrainLimit">Material limit used for <paramref name="FacetsOverLimit"/>.</param>
 /// <param name="FacetsOverLimit">Facets whose max |strain| exceeds the limit, ascending.</param>
 /// <param name="VertexAngleStrain">#V estimate |delta| / (2 pi) per interior vertex of the folded mesh, delta =
-/// 2 pi - sum of its sector angles (geometry.md section 7); 0 on boundary vertices.</param>
+/// 2 pi - sum of its sector angles (docs/reference/geometry.md section 7); 0 on boundary vertices.</param>
 /// <param name="MaxVertexAngleStrain">Largest entry of <paramref name="VertexAngleStrain"/>.</param>
 public sealed record FlatStrainResult(double[] FacetMaxStrain, double MaxStrain, int WorstFacet, double StrainLimit,
     int[] FacetsOverLimit, double[] VertexAngleStrain, double MaxVertexAngleStrain);

@@ -11,6 +11,10 @@ namespace Tessel.Core.Checks;
 /// overlap beyond the shared element); all others by Moller's triangle-triangle test after a box-tree broad phase.</summary>
 public static class PanelCollisions
 {
+    /// <summary>Sine below which two directions at a shared corner count as the same (panels that only touch
+    /// along their shared crease): far below any fold angle a model shows.</summary>
+    private const double SharedCornerSine = 1e-9;
+
     /// <summary>Collisions at the mesh's own positions.</summary>
     public static CollisionResult Find(CreaseMesh mesh) => Find(mesh, mesh.Positions);
 
@@ -72,7 +76,7 @@ public static class PanelCollisions
             var v = Vec3.Read(x, a[i]);
             bool overlap = TriangleIntersection.CornersOverlap(v,
                 Vec3.Read(x, a[(i + 1) % 3]), Vec3.Read(x, a[(i + 2) % 3]),
-                Vec3.Read(x, b[(j + 1) % 3]), Vec3.Read(x, b[(j + 2) % 3]), 1e-9);
+                Vec3.Read(x, b[(j + 1) % 3]), Vec3.Read(x, b[(j + 2) % 3]), SharedCornerSine);
             return overlap ? CollisionKind.OverlapAtSharedCorner : null;
         }
         var p0 = Vec3.Read(x, t1.A); var p1 = Vec3.Read(x, t1.B); var p2 = Vec3.Read(x, t1.C);

@@ -25,6 +25,67 @@ namespace Tessel.Core.Checks;
 /// </remarks>
 public static class RigidFoldingPath
 {
+    /// <summary>RMS fold angle (rad) below which a mesh counts as flat: progress is measured against the given
+    /// fold angles, so a flat start gives it no scale.</summary>
+    private const double FlatStartRmsRad = 1e-9;
+
+    /// <summary>Damping eps of J^T J + eps I as a share of its largest eigenvalue: small, because near the flat
+    /// branch point the folding stiffness drops toward it and Newton slows to the rate eps / (lambda + eps).</summary>
+    private const double DampingShare = 1e-13;
+
+    /// <summary>A factor that fails (indefinite in rounding) is retried with the damping this many times larger,
+    /// then its square.</summary>
+    private const double DampingRetryGrowth = 1e2;
+
+    /// <summary>The corrector can stagnate at a few times its tolerance: residuals up to this multiple of the
+    /// tolerance are accepted, and reported as drift.</summary>
+    private const double StagnationToleranceFactor = 10;
+
+    /// <summary>Inconsistent (non-planar) input cannot be projected below its own residual: accept twice what
+    /// the first projection leaves.</summary>
+    private const double InputResidualFactor = 2;
+
+    /// <summary>Two progress values this close are the same (keyframes, the step's target, the end of the run):
+    /// a few ulps of progress 1.</summary>
+    private const double SameProgress = 1e-12;
+
+    /// <summary>A keyframe this close beyond the next step is landed on exactly, and the corrector's progress
+    /// row counts as met at this distance once it has stopped improving.</summary>
+    private const double ProgressReach = 1e-9;
+
+    /// <summary>Near flat the fold angles shrink in proportion to progress; the last step aims at this share of
+    /// the stop angle so that it lands below it.</summary>
+    private const double NearFlatAim = 0.7;
+
+    /// <summary>Step halving gives up below this share of the settings' step: the path has a fold or a branch there.</summary>
+    private const double SmallestStepShare = 1e-4;
+
+    /// <summary>After an accepted step the step grows by this factor, up to the settings' step.</summary>
+    private const double StepGrowth = 1.5;
+
+    /// <summary>Null-space block size the Ritz iteration starts with (grown while the null space fills it).</summary>
+    private const int InitialRitzBlock = 4;
+
+    /// <summary>A tangent whose progress rate is below this share of |t| |grad progress| is a turning point of
+    /// progress: it cannot be scaled to unit progress.</summary>
+    private const double TurningPointRate = 1e-12;
+
+    /// <summary>A vector that keeps less than this share of its length after Gram-Schmidt depends on the others.</summary>
+    private const double DependentShare = 1e-8;
+
+    /// <summary>Pin rows (fold-angle combinations, radians) count as met within this, like progress.</summary>
+    private const double PinMet = 1e-12;
+
+    /// <summary>The corrector counts as stagnating when an iteration removes less than a tenth of the residual.</summary>
+    private const double StagnationRatio = 0.9;
+
+    /// <summary>A residual above this (a tenth of the mean edge length, dimensionless) means Newton has left the
+    /// path: halve the step instead.</summary>
+    private const double DivergedResidual = 0.1;
+
+    /// <summary>Squared-distance ties (m^2) when choosing the reference face: the lowest index wins below this.</summary>
+    private const double ReferenceTieSquared = 1e-15;
+
     public static FoldingPathResult Simulate(CreaseMesh mesh, FoldingSettings? settings = null) =>
         new Tracer(mesh, settings ?? new FoldingSettings()).Run();
 
@@ -62,25 +123,21 @@ public static class RigidFoldingPath
         public FoldingPathResult Run()
         {
             var clock = Stopwatch.StartNew();
-            if (_rho0.Length == 0 || Math.Sqrt(_rho0Squared / _rho0.Length) < 1e-9)
+            if (_rho0.Length == 0 || Math.Sqrt(_rho0Squared / _rho0.Length) < FlatStartRmsRad)
                 throw new ArgumentException("the mesh must be folded (some non-zero fold angle) to define the path");
             var x0 = (double[])_mesh.Positions.Clone();
             var j0 = _model.Jacobian(x0);
             double lambdaMax = ShiftInvertSubspace.LargestEigenvalue(j0);
-            // Small: near the flat branch point the folding stiffness of J^T J drops toward this damping and Newton
-            // slows to a linear rate shift / (lambda + shift); a failed (indefinite) factor retries 100x larger.
-            _shift = 1e-13 * lambdaMax;
+            _shift = DampingShare * lambdaMax;
             _threshold = _settings.RankTolerance * _settings.RankTolerance * lambdaMax;
             // Project the given state onto the constraint set; what remains (inconsistent input) sets the floor.
             _acceptResidual = double.PositiveInfinity;
             _pinTargets = [];
             Correct(x0, 1.0, out _);
-            // The corrector can stagnate at a few times 1e-12 (measured on the 12 m demo canopy fitted to
-            // 2e-13): accept up to ten times the tolerance; the reported drift shows what was accepted.
-            _acceptResidual = Math.Max(10 * _settings.ConstraintTolerance, 2 * MaxAbs(Residuals(x0)));
+            _acceptResidual = Math.Max(StagnationToleranceFactor * _settings.ConstraintTolerance, InputResidualFactor * MaxAbs(Residuals(x0)));
             Accept(x0);
             var keys = _settings.EffectiveKeyframes.Where(k => k > 0).Distinct().OrderBy(k => k).ToArray();
-            if (keys.Any(k => Math.Abs(k - 1) < 1e-12)) Keep(1.0, x0);
+            if (keys.Any(k => Math.Abs(k - 1) < SameProgress)) Keep(1.0, x0);
 
             var (flatEnd, flatStop, reached) = Trace(x0, -1, keys);
             var (foldEnd, foldStop, _) = Trace(x0, +1, keys);
@@ -102,21 +159,21 @@ public static class RigidFoldingPath
                     if (!_keyframes.Any(k => k.Progress == s)) Keep(s, x);
                     return (s, "near flat", true);
                 }
-                if (direction > 0 && s >= _settings.MaxProgress - 1e-12) return (s, "max progress", false);
+                if (direction > 0 && s >= _settings.MaxProgress - SameProgress) return (s, "max progress", false);
                 if (direction > 0 && maxRho > _settings.MaxFoldAngleDegrees * Math.PI / 180) return (s, "fold angle limit", false);
                 double target;
                 if (direction < 0)
                 {
                     // Near flat the fold angles shrink in proportion to progress: aim just under the stop angle.
-                    double sNear = s * 0.7 * nearFlat / maxRho;
+                    double sNear = s * NearFlatAim * nearFlat / maxRho;
                     target = s - h;
-                    foreach (double k in keys) if (k < s - 1e-12 && k >= target - 1e-9) target = k; // land on keyframes exactly
+                    foreach (double k in keys) if (k < s - SameProgress && k >= target - ProgressReach) target = k; // land on keyframes exactly
                     if (target <= sNear) target = sNear;
                 }
                 else
                 {
                     target = Math.Min(s + h, _settings.MaxProgress);
-                    foreach (double k in keys) if (k > s + 1e-12 && k <= target + 1e-9) target = k;
+                    foreach (double k in keys) if (k > s + SameProgress && k <= target + ProgressReach) target = k;
                 }
                 var tangent = Tangent(x, s);
                 if (tangent == null) return (s, _nullBasis.Count == 0 ? "rigid: no folding motion" : "turning point of progress", false);
@@ -131,13 +188,13 @@ public static class RigidFoldingPath
                 {
                     _lastFactor = null;
                     h /= 2;
-                    if (h < 1e-4 * _settings.StepProgress) return (s, "corrector failed", false);
+                    if (h < SmallestStepShare * _settings.StepProgress) return (s, "corrector failed", false);
                     continue;
                 }
                 x = trial; s = target; _steps++;
                 Accept(x);
-                if (keys.Any(k => Math.Abs(k - s) < 1e-12)) Keep(s, x);
-                h = Math.Min(_settings.StepProgress, 1.5 * h);
+                if (keys.Any(k => Math.Abs(k - s) < SameProgress)) Keep(s, x);
+                h = Math.Min(_settings.StepProgress, StepGrowth * h);
             }
         }
 
@@ -177,7 +234,7 @@ public static class RigidFoldingPath
             // the inverse iteration, while the Rayleigh-Ritz step uses the exact J at x.
             var factor = _lastFactor ?? Factor(j);
             _lastFactor = null;
-            var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, _fixed, _threshold, 4, _nullBasis);
+            var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, _fixed, _threshold, InitialRitzBlock, _nullBasis);
             int k = ritz.Values.Count(v => v <= _threshold);
             if (_dof < 0) _dof = k;
             _nullBasis = ritz.Vectors.Take(k).ToList();
@@ -202,7 +259,7 @@ public static class RigidFoldingPath
             var g = ProgressGradient(x);
             double rate = 0;
             for (int c = 0; c < t.Length; c++) rate += g[c] * t[c];
-            if (!double.IsFinite(rate) || Math.Abs(rate) < 1e-12 * Math.Sqrt(t.Sum(v => v * v)) * Math.Sqrt(g.Sum(v => v * v)))
+            if (!double.IsFinite(rate) || Math.Abs(rate) < TurningPointRate * Math.Sqrt(t.Sum(v => v * v)) * Math.Sqrt(g.Sum(v => v * v)))
                 return null;
             for (int c = 0; c < t.Length; c++) t[c] /= rate;
             for (int i = 0; i < _rhoRate.Length; i++) _rhoRate[i] /= rate;
@@ -246,7 +303,7 @@ public static class RigidFoldingPath
                         for (int i = 0; i < v.Length; i++) v[i] -= d * u[i];
                     }
                 double norm = Math.Sqrt(v.Sum(t => t * t));
-                if (norm <= 1e-8 * scale || norm == 0) continue;
+                if (norm <= DependentShare * scale || norm == 0) continue;
                 for (int i = 0; i < v.Length; i++) v[i] /= norm;
                 result.Add(v);
             }
@@ -270,8 +327,8 @@ public static class RigidFoldingPath
         // The Jacobian's pattern never changes along the path: order and size the envelope once.
         private EnvelopeCholesky Factor(CsrMatrix j)
         {
-            var f = EnvelopeCholesky.Factor(j, _shift, _fixed, _pattern) ?? EnvelopeCholesky.Factor(j, 1e2 * _shift, _fixed, _pattern)
-                    ?? EnvelopeCholesky.Factor(j, 1e4 * _shift, _fixed, _pattern)
+            var f = EnvelopeCholesky.Factor(j, _shift, _fixed, _pattern) ?? EnvelopeCholesky.Factor(j, DampingRetryGrowth * _shift, _fixed, _pattern)
+                    ?? EnvelopeCholesky.Factor(j, DampingRetryGrowth * DampingRetryGrowth * _shift, _fixed, _pattern)
                     ?? throw new InvalidOperationException("constraint normal matrix could not be factored");
             _pattern ??= f;
             return f;
@@ -285,8 +342,8 @@ public static class RigidFoldingPath
         }
 
         /// <summary>Newton-corrects x in place onto the constraints with progress pinned to <paramref name="target"/>.</summary>
-        /// <remarks>Each iteration refactors at the current point: a chord step with the predictor's factor was
-        /// tried and diverges, because that factor is nearly singular along the old tangent.</remarks>
+        /// <remarks>Each iteration refactors at the current point: the predictor's factor is nearly singular
+        /// along the old tangent, so chord steps with it diverge.</remarks>
         private bool Correct(double[] x, double target, out int iterations)
         {
             int n = x.Length;
@@ -302,11 +359,11 @@ public static class RigidFoldingPath
                     var angles = _dihedrals.Angles(x);
                     for (int b = 0; b < _pins.Count; b++) pinError = Math.Max(pinError, Math.Abs(Weighted(_pins[b], angles) - _pinTargets[b]));
                 }
-                if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= 1e-12 && pinError <= 1e-12) return true;
-                if (iterations >= _settings.MaxCorrectorIterations) return worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9;
+                if (worst <= _settings.ConstraintTolerance && Math.Abs(s - target) <= SameProgress && pinError <= PinMet) return true;
+                if (iterations >= _settings.MaxCorrectorIterations) return worst <= _acceptResidual && Math.Abs(s - target) <= ProgressReach;
                 // Stagnation at a least-squares point of inconsistent constraints (non-planar input).
-                if (worst >= 0.9 * previous && worst <= _acceptResidual && Math.Abs(s - target) <= 1e-9) return true;
-                if (!double.IsFinite(worst) || worst > 0.1) return false;
+                if (worst >= StagnationRatio * previous && worst <= _acceptResidual && Math.Abs(s - target) <= ProgressReach) return true;
+                if (!double.IsFinite(worst) || worst > DivergedResidual) return false;
                 previous = worst;
                 var j = _model.Jacobian(x);
                 var factor = Factor(j);
@@ -389,7 +446,7 @@ public static class RigidFoldingPath
                 var c = Vec3.Zero;
                 foreach (int v in mesh.Faces[f]) c += mesh.Vertex(v);
                 double d = (c / mesh.Faces[f].Length - centroid).LengthSquared;
-                if (d < bestDistance - 1e-15) { best = f; bestDistance = d; }
+                if (d < bestDistance - ReferenceTieSquared) { best = f; bestDistance = d; }
             }
             return best;
         }

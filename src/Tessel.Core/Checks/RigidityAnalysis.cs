@@ -13,6 +13,17 @@ namespace Tessel.Core.Checks;
 /// rigid-folding motion that Tachi (J. IASS 50(3), 2009) proves exists.</remarks>
 public static class RigidityAnalysis
 {
+    /// <summary>Shift of the shift-invert iteration as a share of the largest eigenvalue of J^T J: null vectors
+    /// converge at shift / (lambda + shift) per sweep, and the shift must still dominate the factorisation's
+    /// rounding (about 1e-16 x envelope width x lambdaMax).</summary>
+    private const double ShiftShare = 1e-11;
+
+    /// <summary>Larger shift tried when the first factor fails (indefinite in rounding).</summary>
+    private const double RetryShiftShare = 1e-8;
+
+    /// <summary>Block size the subspace iteration starts with (grown while the null space fills it).</summary>
+    private const int InitialRitzBlock = 16;
+
     public static RigidityResult DegreesOfFreedom(CreaseMesh mesh, RigiditySettings? settings = null)
     {
         settings ??= new RigiditySettings();
@@ -52,14 +63,12 @@ public static class RigidityAnalysis
     private static (SingularValues, string) SmallestSingularValues(CsrMatrix j, double tolerance)
     {
         double lambdaMax = ShiftInvertSubspace.LargestEigenvalue(j);
-        // Null vectors converge at shift / (lambda + shift) per sweep; the shift must still dominate the
-        // rounding of the factorisation (about 1e-16 * envelope width * lambdaMax).
-        double shift = 1e-11 * lambdaMax;
+        double shift = ShiftShare * lambdaMax;
         var factor = EnvelopeCholesky.Factor(j, shift, null)
-                     ?? EnvelopeCholesky.Factor(j, 1e-8 * lambdaMax, null)
+                     ?? EnvelopeCholesky.Factor(j, RetryShiftShare * lambdaMax, null)
                      ?? throw new InvalidOperationException("normal matrix could not be factored");
         double threshold = tolerance * tolerance * lambdaMax;
-        var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, null, threshold, 16);
+        var ritz = ShiftInvertSubspace.SmallestWithGrowth(j, factor, null, threshold, InitialRitzBlock);
         var values = ritz.Values.Select(v => Math.Sqrt(Math.Max(v, 0))).ToArray();
         return (new SingularValues(Math.Sqrt(lambdaMax), values, 0), "shift-invert-subspace");
     }

@@ -36,7 +36,14 @@ public sealed record FabricationSpec(
 
     /// <summary>Most sheets an automatic scale may use (fabrication.maxSheets).</summary>
     public int MaxSheets { get; init; } = 1;
+
+    /// <summary>fabrication.boardOnFabric: board and fabric sheets besides the crease sheets; null when absent.</summary>
+    public BoardOnFabricSpec? BoardOnFabric { get; init; }
 }
+
+/// <summary>Board-on-fabric output: board thickness and least hinge gap at model scale, and which face of the
+/// boards the fabric is glued to ("top" or "bottom").</summary>
+public sealed record BoardOnFabricSpec(double BoardThicknessMm, double HingeGapMm, string FabricSide);
 
 /// <summary>score, perforate or two-sided, for each fold direction.</summary>
 public sealed record FoldMethodSpec(string Mountain, string Valley);

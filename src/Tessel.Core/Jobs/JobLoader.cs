@@ -339,6 +339,7 @@ public static partial class JobLoader
         double taper = t.Number("taperDeg") ?? 40;
         t.RejectUnknown();
         double hairline = r.Number("hairlineMm") ?? 0.05;
+        var boards = ReadBoardOnFabric(r);
         var lr = r.Object("layers");
         var layers = new SortedDictionary<string, LayerStyle>(StringComparer.Ordinal);
         foreach (var cls in Catalog.LineClasses)
@@ -404,7 +405,29 @@ public static partial class JobLoader
         if (hairline >= usable)
             throw new JobError(r.PathOf("hairlineMm"), $"a {Format(hairline)} mm line is as wide as the usable sheet ({Format(usable)} mm); cut and fold lines are hairlines, e.g. 0.05");
         return new FabricationSpec(scale, material, new FoldMethodSpec(mountain, valley), sheet, orientation,
-            margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers) { AutoScale = autoScale, MaxSheets = maxSheets };
+            margin, spacing, kerf, new TabSpec(tabWidth, taper), hairline, layers) { AutoScale = autoScale, MaxSheets = maxSheets, BoardOnFabric = boards };
+    }
+
+    /// <summary>fabrication.boardOnFabric, or null when the job has none. Defaults: 2 mm board, a usual
+    /// greyboard for study models (common practice, no source); 0.4 mm gap, the middle of the 0.3-0.5 mm that
+    /// suffices with the fabric inside a fold (docs/reference/fabrication.md [M]); fabric under the boards,
+    /// so the boards are what the model shows.</summary>
+    private static BoardOnFabricSpec? ReadBoardOnFabric(FieldReader fabrication)
+    {
+        bool wanted = fabrication.Has("boardOnFabric");
+        var b = fabrication.Object("boardOnFabric");
+        double thickness = b.Number("boardThicknessMm") ?? 2;
+        double gap = b.Number("hingeGapMm") ?? 0.4;
+        string side = b.String("fabricSide") ?? "bottom";
+        b.RejectUnknown();
+        if (!wanted) return null;
+        // Thicker than 25 mm is a building panel, not a model board (common practice, no source).
+        if (!(thickness > 0 && thickness <= 25))
+            throw new JobError(b.PathOf("boardThicknessMm"), $"must be a board thickness in mm above 0 and at most 25, e.g. 2 (got {Format(thickness)})");
+        if (!(gap >= 0 && gap <= 10))
+            throw new JobError(b.PathOf("hingeGapMm"), $"must be a gap in mm from 0 to 10, e.g. 0.4 (got {Format(gap)})");
+        CheckChoice(b.PathOf("fabricSide"), side, ["top", "bottom"]);
+        return new BoardOnFabricSpec(thickness, gap, side);
     }
 
     /// <summary>Cutter operations a layer can be mapped to (the sheet stage's line operations).</summary>

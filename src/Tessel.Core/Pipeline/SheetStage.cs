@@ -96,6 +96,9 @@ public static class SheetStage
             .Select(s => SheetAnnotations.RequiredStripHeight(stripWidth,
                 stripContent with { KeyNotes = plain.NeedsBackJob ? PairNotes(s, plain, fileTypes) : null }, styles, classes))
             .Max();
+        if (BoardSettings(job, plain) is { } boards)
+            strip = Math.Max(strip, new[] { ThickPanels.BoardsSide, BoardOnFabric.FabricSide }.Max(side => SheetAnnotations.RequiredStripHeight(stripWidth,
+                stripContent with { KeyNotes = BoardOnFabric.Notes(sample with { Side = side }, boards, fileTypes) }, styles, classes)));
         return SettingsFor(job, strip);
     }
 
@@ -142,12 +145,25 @@ public static class SheetStage
             .ToArray();
         var cover = AssemblyGuide.Cover(settings.Sheet.WidthMm, settings.Sheet.HeightMm, settings.MarginMm,
             content with { IncludeCautions = true, CautionLine = false }, styles, layout, flat, fileTypes).Sheet;
+        if (BoardSettings(job, settings) is { } board)
+        {
+            var made = BoardOnFabric.Build(flat, layout, board);
+            annotated = [.. annotated, .. made.Boards.Concat(made.Fabric).Select(s => SheetAnnotations.AddToStrip(s, settings.AnnotationStrip,
+                content with { KeyNotes = BoardOnFabric.Notes(s, board, fileTypes) }, styles).Sheet)];
+            layout = layout with { Figures = layout.Figures with { Warnings = [.. layout.Figures.Warnings, .. made.Warnings] } };
+        }
         var fig = layout.Figures;
         progress.Step($"{Wording.Count(fig.PartCount, "part")} on {Wording.Count(fig.SheetCount, "sheet")}, {Wording.Count(layout.Seams.Length, "seam")}, laser about {fig.EstimatedLaserSeconds / 60:0.#} min");
         bool byHand = job.Fabrication.FoldMethod.Mountain == HandScore || job.Fabrication.FoldMethod.Valley == HandScore;
         var print = byHand ? styles.WithStrokeWidth(PrintLineMm).WithDashUnit(PrintLineMm) : styles;
         return new SheetStageResult(settings, styles, layout, annotated, cover) { PrintStyles = print };
     }
+
+    /// <summary>Thick-panel settings of a board-on-fabric job (fabrication.boardOnFabric); null for any other job.</summary>
+    public static ThickPanelSettings? BoardSettings(Job job, FabricationSettings settings) =>
+        job.Fabrication.BoardOnFabric is { } b
+            ? new ThickPanelSettings(b.BoardThicknessMm, b.FabricSide == "top" ? HingeSide.Top : HingeSide.Bottom, b.HingeGapMm, settings.KerfMm)
+            : null;
 
     /// <summary>File extensions written for each sheet job, in the order the writers run.</summary>
     public static string[] FileTypes(Job job) =>

@@ -18,24 +18,33 @@ public enum HingeSide
 /// <param name="BoardThicknessMm">Board thickness t at model scale.</param>
 /// <param name="Hinge">Face the hinge layer is on.</param>
 /// <param name="InsideGapMm">Gap between boards where the hinge is on the inside of the fold
-/// (0.3-0.5 mm, fabrication.md [M]).</param>
-public sealed record ThickPanelSettings(double BoardThicknessMm, HingeSide Hinge = HingeSide.Top, double InsideGapMm = 0.4);
+/// (0.3-0.5 mm, docs/reference/fabrication.md [M]); also the least gap anywhere.</param>
+/// <param name="KerfMm">Width the cutter removes: each panel outline is drawn kerf/2 outside the panel so
+/// that the cut board has the panel's size and the hinge gaps stay as computed.</param>
+public sealed record ThickPanelSettings(double BoardThicknessMm, HingeSide Hinge = HingeSide.Top, double InsideGapMm = 0.4,
+    double KerfMm = 0);
 
 /// <summary>Board panels for every facet, on the same sheets and in the same place as the crease layout.</summary>
-/// <param name="Sheets">One sheet per layout sheet (Side "panels"): panel outlines to cut, part outlines as
+/// <param name="Sheets">One sheet per layout sheet (Side "boards"): panel outlines to cut, part outlines as
 /// annotation (the hinge layer's template).</param>
 /// <param name="Panels">#F panel outline of each facet in sheet mm (open ring); empty when the facet vanishes.</param>
 /// <param name="EdgeGapMm">#E total gap between the two boards at each edge (0 on the boundary).</param>
 /// <param name="Warnings">Facets that vanish at this board thickness.</param>
 public sealed record ThickPanelResult(Sheet[] Sheets, Vec2[][] Panels, double[] EdgeGapMm, string[] Warnings);
 
-/// <summary>Square-edged thick panels (fabrication.md "Thick panels"; Lang et al., Appl. Mech. Rev. 70(1),
+/// <summary>Square-edged thick panels (docs/reference/fabrication.md "Thick panels"; Lang et al., Appl. Mech. Rev. 70(1),
 /// 2018): where the hinge lies on the outside of a fold of angle rho the boards must stand
 /// g = 2 t sin(rho/2) apart on the hinge face, so each board's edge moves back g/2; where it lies on the
-/// inside a small fixed gap suffices (also the least gap used on the outside, for nearly flat folds). Each facet's panel is its polygon with a strip of its own setback
-/// removed along every edge (NTS difference), so facets are taken as convex.</summary>
+/// inside a small fixed gap suffices (also the least gap used on the outside, for nearly flat folds). Each facet's panel is its polygon
+/// clipped back from every edge by that edge's setback, so facets are taken as convex.</summary>
 public static class ThickPanels
 {
+    /// <summary>Side name of the board sheets: "sheet-01-boards".</summary>
+    public const string BoardsSide = "boards";
+
+    /// <summary>Panels smaller than this (mm^2) count as vanished: a sliver left by the strips' floating-point ends.</summary>
+    private const double VanishedAreaMm2 = 1e-6;
+
     /// <summary>Least gap on the hinge face for square edges with the hinge outside a fold of angle rho (radians).</summary>
     public static double OutsideGap(double thicknessMm, double rho) => 2 * thicknessMm * Math.Sin(Math.Abs(rho) / 2);
 
@@ -70,20 +79,21 @@ public static class ThickPanels
                 {
                     var face = mesh.Faces[f];
                     var ring = face.Select(v => part.VertexPositions[Array.BinarySearch(part.Vertices, v)]).ToArray();
-                    NetTopologySuite.Geometries.Geometry panel = NtsGeometry.Polygon(ring);
-                    double reach = ring.Max(a => ring.Max(b => (b - a).Length));
                     var centre = PatternSplitter.Centroid(ring);
-                    for (int k = 0; k < face.Length; k++)
+                    var panel = ring;
+                    for (int k = 0; k < face.Length && panel.Length >= 3; k++)
                     {
                         int a = face[k], b = face[(k + 1) % face.Length];
                         double setback = gaps[edgeOf[a < b ? (a, b) : (b, a)]] / 2;
                         if (setback <= 0) continue;
-                        panel = panel.Difference(Strip(ring[k], ring[(k + 1) % face.Length], setback, reach, centre));
+                        panel = KeepBeyond(panel, ring[k], ring[(k + 1) % face.Length], setback, centre);
                     }
-                    if (panel is Polygon p && !p.IsEmpty && p.Area > 1e-6)
+                    if (panel.Length >= 3 && Math.Abs(SignedArea(panel)) > VanishedAreaMm2)
                     {
-                        panels[f] = NtsGeometry.OpenRing(p.ExteriorRing);
-                        lines.Add(new SheetLine(LineClass.CutOutline, panels[f], true));
+                        panels[f] = panel;
+                        var cut = settings.KerfMm > 0 && NtsGeometry.Polygon(panel).Buffer(settings.KerfMm / 2, KerfJoin) is Polygon wider
+                            ? NtsGeometry.OpenRing(wider.ExteriorRing) : panel;
+                        lines.Add(new SheetLine(LineClass.CutOutline, cut, true));
                     }
                     else
                     {
@@ -95,19 +105,39 @@ public static class ThickPanels
             // Annotations first, then the cuts, as on the crease sheets.
             var ordered = lines.Where(l => l.Class == LineClass.Annotation).Concat(lines.Where(l => l.Class != LineClass.Annotation)).ToArray();
             var like = layout.Sheets.First(s => s.Number == sheetNumber);
-            sheets.Add(new Sheet(sheetNumber, like.WidthMm, like.HeightMm, ordered) { Side = "panels", Utilisation = like.Utilisation });
+            sheets.Add(new Sheet(sheetNumber, like.WidthMm, like.HeightMm, ordered) { Side = BoardsSide, Utilisation = like.Utilisation });
         }
         for (int f = 0; f < panels.Length; f++) panels[f] ??= [];
         return new ThickPanelResult(sheets.ToArray(), panels, gaps, warnings.ToArray());
     }
 
-    /// <summary>The band of the given depth along the whole line through p and q, on the side of <paramref name="inside"/>.</summary>
-    private static Polygon Strip(Vec2 p, Vec2 q, double depth, double reach, Vec2 inside)
+    /// <summary>Mitred corners keep a panel's corners sharp when the outline moves out by half the kerf.</summary>
+    private static readonly NetTopologySuite.Operation.Buffer.BufferParameters KerfJoin =
+        new() { JoinStyle = NetTopologySuite.Operation.Buffer.JoinStyle.Mitre, MitreLimit = 4 };
+
+    /// <summary>The part of convex <paramref name="polygon"/> at least <paramref name="depth"/> from the line
+    /// through p and q, on the side of <paramref name="inside"/> (one Sutherland-Hodgman clip: exact for convex
+    /// facets, and free of the noding failures a polygon difference meets on nearly parallel edges).</summary>
+    private static Vec2[] KeepBeyond(Vec2[] polygon, Vec2 p, Vec2 q, double depth, Vec2 inside)
     {
-        var u = (q - p).Normalized();
-        var n = u.Perp;
+        var n = (q - p).Normalized().Perp;
         if (Vec2.Dot(inside - p, n) < 0) n = -n;
-        var a = p - reach * u; var b = q + reach * u;
-        return NtsGeometry.Polygon([a, b, b + depth * n, a + depth * n]);
+        double Height(Vec2 x) => Vec2.Dot(x - p, n) - depth;
+        var kept = new List<Vec2>();
+        for (int i = 0; i < polygon.Length; i++)
+        {
+            Vec2 a = polygon[i], b = polygon[(i + 1) % polygon.Length];
+            double ha = Height(a), hb = Height(b);
+            if (ha >= 0) kept.Add(a);
+            if ((ha >= 0) != (hb >= 0)) kept.Add(a + ha / (ha - hb) * (b - a));
+        }
+        return kept.ToArray();
+    }
+
+    private static double SignedArea(Vec2[] ring)
+    {
+        double twice = 0;
+        for (int i = 0; i < ring.Length; i++) twice += Vec2.Cross(ring[i], ring[(i + 1) % ring.Length]);
+        return twice / 2;
     }
 }

@@ -5,7 +5,7 @@ namespace Tessel.Core.Tessellation;
 /// <summary>Discrete Gaussian curvature of a polyhedral surface: the angle defect 2 pi - (sum of face
 /// corners) at an interior vertex, pi - (sum) at a boundary vertex. By the discrete Gauss-Bonnet
 /// theorem the interior plus boundary defects of a triangulated disk sum to exactly 2 pi (derived in
-/// geometry.md section 6); a developable crease pattern has zero defect at every interior vertex.</summary>
+/// docs/reference/geometry.md section 6); a developable crease pattern has zero defect at every interior vertex.</summary>
 public static class AngleDefects
 {
     /// <summary>#V defects in radians, interior vertices against 2 pi, boundary ones against pi;

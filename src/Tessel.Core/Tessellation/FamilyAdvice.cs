@@ -9,7 +9,7 @@ namespace Tessel.Core.Tessellation;
 public sealed record FamilyAdvice(string Family, bool Suits, string Message, string? Better)
 {
     /// <summary>Total curvature |K| x area below which a target counts as single-curved or flat
-    /// (0.05 rad of angle defect spread over the whole sheet; derived here from geometry.md section 7:
+    /// (0.05 rad of angle defect spread over the whole sheet; derived here from docs/reference/geometry.md section 7:
     /// at 100 vertices it is 0.0005 rad each, ten times below the invisible 0.005 rad).</summary>
     public const double NegligibleTotalCurvature = 0.05;
 

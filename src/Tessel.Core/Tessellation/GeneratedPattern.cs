@@ -33,7 +33,7 @@ public sealed record GeneratedPattern(
     public Func<CreaseMesh, CreaseMesh>? Envelope { get; init; }
 
     /// <summary>True when the family promises a synclastic envelope (K &gt; 0 at every interior envelope
-    /// vertex, geometry.md section 3); the build warns when the fitted envelope breaks the promise.</summary>
+    /// vertex, docs/reference/geometry.md section 3); the build warns when the fitted envelope breaks the promise.</summary>
     public bool PromisesSynclasticEnvelope { get; init; }
 }
 

@@ -13,6 +13,23 @@ namespace Tessel.Core.Unfolding;
 /// Gauss-Newton from the tree layout, one vertex and one direction fixed).</summary>
 public static class MeshUnfolder
 {
+    /// <summary>An edge shorter than this share of the mean edge (or a facet smaller than its square) has no
+    /// direction to lay flat: far below any crease a sheet could show, far above rounding.</summary>
+    private const double DegenerateShare = 1e-6;
+
+    /// <summary>Gauss-Newton iterations of the flattening; it converges in a handful, this only bounds a stall.</summary>
+    private const int FlattenIterations = 30;
+
+    /// <summary>The flattening stops at this sum of squared relative strains (exact to rounding) ...</summary>
+    private const double ExactCost = 1e-30;
+
+    /// <summary>... or when an iteration removes less than this share of it (rounding-level progress).</summary>
+    private const double StalledCostShare = 1e-14;
+
+    /// <summary>Diagonal added to the Gauss-Newton matrix so that it stays positive definite where a vertex
+    /// has too few length rows; small against the unit-scaled rows.</summary>
+    private const double FlattenDamping = 1e-12;
+
     /// <summary>The flat pattern; strain per edge is (flat - folded) / folded.</summary>
     /// <param name="solver">SPD solver for the flattening; default the fitter's default solver.</param>
     /// <param name="strainTolerance">Largest |strain| accepted from the tree layout before flattening.</param>
@@ -63,7 +80,7 @@ public static class MeshUnfolder
         mean /= Math.Max(1, mesh.EdgeCount);
         var (pairs, lengths) = LengthPairs(mesh);
         for (int k = 0; k < lengths.Length; k++)
-            if (!(lengths[k] > 1e-6 * mean))
+            if (!(lengths[k] > DegenerateShare * mean))
                 throw new ArithmeticException($"vertices {pairs[2 * k]} and {pairs[2 * k + 1]} of the folded model coincide (distance {lengths[k]:0.###E+0} m)");
         for (int f = 0; f < mesh.FaceCount; f++)
         {
@@ -71,7 +88,7 @@ public static class MeshUnfolder
             var sum = Vec3.Zero;
             var o = mesh.Vertex(face[0]);
             for (int k = 1; k + 1 < face.Length; k++) sum += Vec3.Cross(mesh.Vertex(face[k]) - o, mesh.Vertex(face[k + 1]) - o);
-            if (!(sum.Length / 2 > 1e-6 * mean * mean))
+            if (!(sum.Length / 2 > DegenerateShare * mean * mean))
                 throw new ArithmeticException($"facet {f} of the folded model has no area (its corners are in a line)");
         }
     }
@@ -187,7 +204,7 @@ public static class MeshUnfolder
         double previous = double.MaxValue;
         Span<int> ids = stackalloc int[4];
         Span<double> g = stackalloc double[4];
-        for (int it = 0; it < 30; it++)
+        for (int it = 0; it < FlattenIterations; it++)
         {
             var triplets = new List<(int, int, double)>(lengths.Length * 16);
             Array.Clear(rhs);
@@ -208,9 +225,9 @@ public static class MeshUnfolder
                     for (int j = 0; j < 4; j++) if (ids[j] >= 0) triplets.Add((ids[i], ids[j], g[i] * g[j]));
                 }
             }
-            if (cost < 1e-30 || previous - cost <= 1e-14 * previous) break;
+            if (cost < ExactCost || previous - cost <= StalledCostShare * previous) break;
             previous = cost;
-            for (int i = 0; i < n; i++) triplets.Add((i, i, 1e-12));
+            for (int i = 0; i < n; i++) triplets.Add((i, i, FlattenDamping));
             var m = CsrMatrix.FromTriplets(n, n, triplets);
             Array.Clear(step);
             solver.Solve(m, rhs, step);

@@ -14,7 +14,7 @@ public class EnvelopeCurvatureTests
     public void FittedMiuraSaddleHasAnAnticlasticEnvelope()
     {
         // A Miura sheet bent out of plane forms a saddle, K < 0 (Wei, Guo, Dudte, Liang & Mahadevan,
-        // PRL 110, 2013; geometry.md section 2): every interior envelope defect must be negative.
+        // PRL 110, 2013; docs/reference/geometry.md section 2): every interior envelope defect must be negative.
         var (pattern, target) = SaddleCase.Make(6);
         var fit = EpsilonConstraintFitter.Fit(pattern, target, new FitSettings { StartPerturbation = 0 });
         Assert.True(fit.Converged, fit.StopReason);
@@ -30,7 +30,7 @@ public class EnvelopeCurvatureTests
     [Fact]
     public void FittedReverseCurvatureDomePromisesAndKeepsASynclasticEnvelope()
     {
-        // geometry.md section 3: the family's acceptance is a positive defect at every interior envelope vertex.
+        // docs/reference/geometry.md section 3: the family's acceptance is a positive defect at every interior envelope vertex.
         var dome = new SphericalCapSurface(Footprint.Rectangle(1.0, 1.0), 4.0, 0.3);
         var pattern = ReverseCurvatureGenerator.Generate(dome, new ReverseCurvatureParameters(new MiuraParameters(CellsX: 4, CellsY: 4, SectorAngleDeg: 60, FoldDepth: 0.06), 0));
         Assert.True(pattern.PromisesSynclasticEnvelope);

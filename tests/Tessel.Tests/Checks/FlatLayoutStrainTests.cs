@@ -51,7 +51,7 @@ public class FlatLayoutStrainTests
     public void PyramidApexNeedsItsAngleDefectOverTwoPiAsStrain()
     {
         // Square pyramid, base corners (+-1, +-1, 0), apex (0, 0, 1): each apex angle is acos(1/3), so the
-        // defect is 2 pi - 4 acos(1/3) = 1.3593476 rad and the estimate 0.2163469 (derived; geometry.md section 7).
+        // defect is 2 pi - 4 acos(1/3) = 1.3593476 rad and the estimate 0.2163469 (derived; docs/reference/geometry.md section 7).
         var pos = new double[] { 0, 0, 1, 1, -1, 0, 1, 1, 0, -1, 1, 0, -1, -1, 0 };
         int[][] faces = [[0, 1, 2], [0, 2, 3], [0, 3, 4], [0, 4, 1]];
         var mesh = new CreaseMesh("pyramid", pos, faces, new VertexLayer[5], (_, _) => CreaseRole.Mountain);

@@ -101,7 +101,7 @@ public class RigidFoldingPathTests
     public void DegreeFourVertexKeepsLangHowellFoldAngleRatio()
     {
         // Lang & Howell, J. Mech. Robot. 10(2) 2018: rho3 = rho1, rho4 = -rho2, tan(rho2/2) = mu tan(rho1/2),
-        // mu = -cos((a+b)/2) / cos((a-b)/2); a = 50 deg, b = 70 deg gives mu = -0.50771 (geometry.md section 1).
+        // mu = -cos((a+b)/2) / cos((a-b)/2); a = 50 deg, b = 70 deg gives mu = -0.50771 (docs/reference/geometry.md section 1).
         double alpha = 50 * Deg, beta = 70 * Deg;
         double mu = -Math.Cos((alpha + beta) / 2) / Math.Cos((alpha - beta) / 2);
         Assert.Equal(-0.50771, mu, 5);
@@ -125,7 +125,7 @@ public class RigidFoldingPathTests
     {
         // Six 60-degree sectors, crease elevations alternating 20 deg and psi_b with
         // 0.5 cos(20) cos(psi_b) + sin(20) sin(psi_b) = 0.5 so every sector stays 60 deg (derived here).
-        // A triangulated disk with 6 boundary vertices has 6 - 3 = 3 DOF (geometry.md section 4); the predictor's
+        // A triangulated disk with 6 boundary vertices has 6 - 3 = 3 DOF (docs/reference/geometry.md section 4); the predictor's
         // least-squares "uniform scaling" direction is intrinsic and unique, so it must keep the 3-fold symmetry:
         // rho1 = rho3 = rho5 and rho2 = rho4 = rho6 all the way.
         double psiA = 20 * Deg;

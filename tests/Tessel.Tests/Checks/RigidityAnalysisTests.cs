@@ -7,7 +7,7 @@ namespace Tessel.Tests.Checks;
 public class RigidityAnalysisTests
 {
     [Theory]
-    // Check values from geometry.md section 4 (derived; Tachi, J. IASS 50(3) 2009 for the Miura sheets):
+    // Check values from docs/reference/geometry.md section 4 (derived; Tachi, J. IASS 50(3) 2009 for the Miura sheets):
     // one degree-4 vertex (1x1 cell = 2x2 quads), Miura 3x3 and 4x4 cells all fold with one DOF.
     [InlineData(1, 1)]
     [InlineData(3, 3)]
@@ -32,7 +32,7 @@ public class RigidityAnalysisTests
     [InlineData(4, 12)]
     public void GenericTriangulatedDiskHasBoundaryMinusThreeDegreesOfFreedom(int n, int seed)
     {
-        // Derived here (geometry.md section 4): E = 3V - Vb - 3 independent bars leave Vb - 3 motions.
+        // Derived here (docs/reference/geometry.md section 4): E = 3V - Vb - 3 independent bars leave Vb - 3 motions.
         var mesh = CheckMeshes.RandomTriangulatedDisk(n, seed);
         int boundary = mesh.BoundaryVertices().Count(b => b);
         Assert.Equal(4 * n, boundary);
@@ -78,7 +78,7 @@ public class RigidityAnalysisTests
     [Fact]
     public void FlatMiuraIsABranchPointWithExtraMobility()
     {
-        // At theta = 0 every crease can start to fold: the rank drops (geometry.md section 4, derived).
+        // At theta = 0 every crease can start to fold: the rank drops (docs/reference/geometry.md section 4, derived).
         var flat = CheckMeshes.Miura(3, 3, thetaDeg: 0);
         var r = RigidityAnalysis.DegreesOfFreedom(flat, new RigiditySettings(Method: RankMethod.DenseSvd));
         Assert.True(r.DegreesOfFreedom > 1, $"flat DOF {r.DegreesOfFreedom}");

@@ -37,7 +37,7 @@ public class JobLoaderTests
         Assert.Equal(0, job.Fitting.EpsilonDeg);
         Assert.Equal("none", job.Fitting.Anchors);
         Assert.Equal(100, job.Fabrication.Scale);
-        // ISO 216 A3 is 297 x 420 mm (shared/reference/fabrication.md).
+        // ISO 216 A3 is 297 x 420 mm (docs/reference/fabrication.md).
         Assert.Equal(297, job.Fabrication.Sheet.WidthMm);
         Assert.Equal(420, job.Fabrication.Sheet.HeightMm);
         Assert.Equal(8, job.Fabrication.Layers.Count);
@@ -58,7 +58,7 @@ public class JobLoaderTests
     public void SheetNamesResolveCaseInsensitively()
     {
         var job = Parse("""{ "target": { "kind": "plane", "footprint": { "width": 4, "depth": 3 } }, "fabrication": { "sheet": { "name": "letter" } } }""");
-        // US Letter 215.9 x 279.4 mm (ANSI/ASME Y14.1, as listed in shared/reference/fabrication.md).
+        // US Letter 215.9 x 279.4 mm (ANSI/ASME Y14.1, as listed in docs/reference/fabrication.md).
         Assert.Equal("Letter", job.Fabrication.Sheet.Name);
         Assert.Equal(215.9, job.Fabrication.Sheet.WidthMm);
         Assert.Equal(279.4, job.Fabrication.Sheet.HeightMm);

@@ -17,7 +17,7 @@ public class SheetStageTests
     public void MaterialFoldMethodLeavesThePresetsChoice()
     {
         // Card: the scored side ends up on the outside of a fold, so valleys are scored from the back
-        // (common practice, no source; shared/reference/fabrication.md).
+        // (common practice, no source; docs/reference/fabrication.md).
         var settings = SheetStage.SettingsFor(WithFolds("material", "material"));
         Assert.Equal(FoldMethod.Score, settings.MethodFor(CreaseRole.Mountain));
         Assert.Equal(FoldMethod.ScoreFromBack, settings.MethodFor(CreaseRole.Valley));

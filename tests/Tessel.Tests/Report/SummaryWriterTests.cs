@@ -49,7 +49,7 @@ public class SummaryWriterTests
         }
         Assert.Contains("mm on the model at 1:50", lines[6]);
         Assert.StartsWith("  ! 2 vertices", lines[8]);
-        // The caution is one line and defers to the workshop's own rules (fabrication.md, Safety).
+        // The caution is one line and defers to the workshop's own rules (docs/reference/fabrication.md, Safety).
         Assert.Equal("  " + Tessel.Core.Sheets.SheetAnnotations.CautionLine, lines[9]);
         foreach (string must in new[] { "workshop's rules", "machine maker's instructions", "training", "polypropylene", "adhesives", "PVC" })
             Assert.Contains(must, lines[9]);

@@ -11,7 +11,7 @@ public class GlueTabTests
         // Seam along x from (0,0) to (30,0); mating square facet 30 x 12 below (y < 0).
         var facet = new[] { new Vec2(0, 0), new Vec2(0, -12), new Vec2(30, -12), new Vec2(30, 0) };
         var tab = GlueTab.Build(new Vec2(0, 0), new Vec2(30, 0), facet, 7, 40 * Math.PI / 180, 0);
-        // Width capped at 12 / 3 = 4 mm (fabrication.md [CP/M]).
+        // Width capped at 12 / 3 = 4 mm (docs/reference/fabrication.md [CP/M]).
         Assert.Equal(4, tab.WidthMm, 12);
         Assert.All(tab.Polygon.Skip(2), p => Assert.Equal(-4, p.Y, 12));
         // Ends at 40 deg: inset 4 / tan 40 deg at each end.

@@ -244,7 +244,7 @@ public class SheetLayoutTests
     [Fact]
     public void NarrowFacetsAndStrainAreWarnedAbout()
     {
-        // 0.15 m facets at 1:50 are 3 mm wide at most, under 10 x 0.4 mm card thickness (fabrication.md [M]).
+        // 0.15 m facets at 1:50 are 3 mm wide at most, under 10 x 0.4 mm card thickness (docs/reference/fabrication.md [M]).
         var small = FlatMiura.Build(3, 3, 0.15, 0.15);
         var strained = new FlatPattern(small.Folded, small.Positions, Enumerable.Range(0, small.EdgeCount).Select(e => e == 0 ? 0.002 : 0.0).ToArray());
         var layout = SheetLayout.Lay(strained, Card);
@@ -364,7 +364,7 @@ public class SheetLayoutTests
     [InlineData(GrainDirection.AlongHeight, 90.0)]
     public void LongestCreaseFamilyFollowsTheGrain(GrainDirection grain, double expectedDegrees)
     {
-        // Common practice (fabrication.md [CP]): fold long crease families along the grain.
+        // Common practice (docs/reference/fabrication.md [CP]): fold long crease families along the grain.
         var layout = SheetLayout.Lay(Miura, Card with { Grain = grain });
         Assert.DoesNotContain(layout.Figures.Warnings, w => w.Contains("across the grain"));
         var mesh = Miura.Folded;

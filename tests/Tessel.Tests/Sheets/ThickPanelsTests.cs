@@ -36,7 +36,7 @@ public class ThickPanelsTests
         Assert.Equal(Math.PI / 2, pattern.Folded.FoldAngle(fold), 9);
         var layout = SheetLayout.Lay(pattern, new FabricationSettings { ScaleDenominator = 1 });
         var panels = ThickPanels.Build(pattern, layout, new ThickPanelSettings(2.0, HingeSide.Top));
-        // g = 2 t sin(rho/2) = 2 x 2 x sin 45 deg = 2.828 mm (fabrication.md "Thick panels", from the geometry).
+        // g = 2 t sin(rho/2) = 2 x 2 x sin 45 deg = 2.828 mm (docs/reference/fabrication.md "Thick panels", from the geometry).
         Assert.Equal(4 * Math.Sin(Math.PI / 4), panels.EdgeGapMm[fold], 12);
         // Boundary edges stay; the fold edge moves back g/2 on each board: 10 x (10 - 1.414) mm^2.
         Assert.All(panels.Panels, p => Assert.Equal(10 * (10 - 2 * Math.Sin(Math.PI / 4)), Area(p), 9));

@@ -12,7 +12,7 @@ public class MiuraCellTests
     public void CheckValuesMatchSchenkGuest2013()
     {
         // Schenk & Guest, PNAS 110(9) 2013, formulas; values for a = b = 1, gamma = 60 deg,
-        // theta = 45 deg evaluated from them (shared/reference/geometry.md section 2).
+        // theta = 45 deg evaluated from them (docs/reference/geometry.md section 2).
         var c = new MiuraCell(1, 1, 60 * Deg, 45 * Deg);
         Assert.Equal(0.6124, c.H, 4);
         Assert.Equal(0.7746, c.S, 4);

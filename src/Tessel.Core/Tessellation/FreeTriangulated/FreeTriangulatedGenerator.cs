@@ -17,23 +17,16 @@ namespace Tessel.Core.Tessellation.FreeTriangulated;
 /// both ways wherever the target's curvature demands, so no mountain/valley sign is imposed during the
 /// fit; call <see cref="RelabelFolds"/> on the fitted mesh to label its creases.
 /// The start is crumpled: interior vertices sit off the target along its normal by normal deviates of standard deviation
-/// <see cref="FreeTriangulatedParameters.Crumple"/> cell sizes. On a smooth star the angle sum is at a
-/// maximum over normal motions of the centre, so the developability residual has no useful gradient
-/// there (the same trap as the facet-angle planarity test in geometry.md section 1); measured on a
-/// 6 x 6 net on a cap, a start within 0.02 cells of the target did not reach developability in 300
-/// steps while a 0.1-cell crumple converged to 2e-14 rad.
+/// <see cref="FreeTriangulatedParameters.Crumple"/> cell sizes, because on a smooth star the angle sum is at a
+/// maximum over normal motions of the centre and the developability residual has no useful gradient
+/// there (the same trap as the facet-angle planarity test in docs/reference/geometry.md section 1).
 /// With planar quad panels (share &gt; 0) a random crumple is a trap of its own: a degree-4 vertex
-/// between planar panels whose creases all fold the same way is a convex cone (angle sum &lt; 2 pi), and
-/// it can only become developable by flipping a crease through the flat state, where the angle sum has
-/// no gradient; the fit then stalled with developability 1e-3 to 3e-2 rad and planarity 1e-4 to 1e-2
-/// left (6 x 6 on a cap, shares 0.5 and 1, 300 steps, any penalty from 1e2 to 1e6). Such a net starts
+/// between planar panels whose creases all fold the same way is a convex cone (angle sum &lt; 2 pi) that
+/// can only become developable by flipping a crease through the flat state. Such a net starts
 /// instead as a Miura-like corrugation (Schenk &amp; Guest 2013 layout): interior grid rows alternately
 /// above and below the target by <see cref="CorrugationFactor"/> x <see cref="FreeTriangulatedParameters.Crumple"/>
-/// cells and odd columns
-/// shifted across the rows by <see cref="ZigZagShift"/> cells, so every degree-4 vertex starts with the
-/// three-one crease signs of a folded developable vertex. Measured on the 6 x 6 cap with the default
-/// Crumple (0.2-cell rows): shares 0.5 and 1 converge in 97 and 71 steps (constraints 1e-15); with
-/// 0.1-cell rows they did not.
+/// cells and odd columns shifted across the rows by <see cref="ZigZagShift"/> cells, so every degree-4 vertex
+/// starts with the three-one crease signs of a folded developable vertex. Measurements: docs/decisions.md.
 /// </remarks>
 public static class FreeTriangulatedGenerator
 {

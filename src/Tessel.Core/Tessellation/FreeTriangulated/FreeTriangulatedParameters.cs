@@ -7,11 +7,8 @@ namespace Tessel.Core.Tessellation.FreeTriangulated;
 /// <param name="CellSize">Plan size of one grid cell in metres, used where a count is null.</param>
 /// <param name="FlatDiagonalShare">Share of the grid cells, in [0, 1], kept as planar quad panels (their
 /// diagonal a flat crease, held planar by the fit) instead of two triangles folded along the diagonal.
-/// A net with panels starts corrugated (see <see cref="FreeTriangulatedGenerator"/>); measured: 6 x 6 on a
-/// cap converges for shares 0.5 and 1 (DOF 21, 3 and 0 for shares 0, 0.5 and 1), 8 x 8 for share 0.5
-/// and 10 x 10 for share 1, but 8 x 8 at share 1 needs about 650 steps. On a saddle panelled nets did
-/// not converge within 300 steps (a deeper corrugation, 3 x Crumple, suits the saddle but fails on the
-/// cap); check the fit's residuals.</param>
+/// A net with panels starts corrugated (see <see cref="FreeTriangulatedGenerator"/>); large shares and saddles
+/// converge less often (measurements in docs/decisions.md): check the fit's residuals.</param>
 /// <param name="Crumple">Standard deviation of the start's deterministic out-of-surface offsets of interior
 /// vertices, as a fraction of the cell size (see <see cref="FreeTriangulatedGenerator"/>); with quad panels
 /// half the row offset of the corrugated start instead; 0 starts on the target itself.</param>

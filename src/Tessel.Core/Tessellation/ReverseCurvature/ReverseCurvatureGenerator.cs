@@ -4,27 +4,16 @@ using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Core.Tessellation.ReverseCurvature;
 
-/// <summary>Reverse-curvature family (geometry.md section 3): developable, Kawasaki-satisfying degree-4
+/// <summary>Reverse-curvature family (docs/reference/geometry.md section 3): developable, Kawasaki-satisfying degree-4
 /// quad tessellations whose folded envelope is synclastic (K &gt; 0), the opposite sign to a bent uniform
 /// Miura sheet (Wei et al., PRL 110, 2013). Made here as a Miura sheet (Schenk &amp; Guest 2013 cell)
 /// whose zig-zag offset grows from the centre outward, draped on the dome with the two-layer offset of
 /// Dudte et al. (Nature Materials 15, 2016); the Miura constraints (planar quads, Kawasaki,
 /// developability, fold signs) are then enforced by the common fitter, which finishes the grading.</summary>
 /// <remarks>
-/// Why the fit used to miss the dome: phase 1 of the fit projects the drape onto the constraints and
-/// lands on a sheet that follows the dome across the zig-zag (the Miura's own bending mode) but stays
-/// nearly straight along it (the saddle tendency of Wei et al.); reaching the dome then needs a long
-/// walk along the constraint set, which the default penalty (1e6) freezes into a creep. Measured on a
-/// 1 m square of an R = 4 m cap: 4 x 4 cells stopped at 9.9 mm RMS with envelope defects of both signs
-/// (-0.0009 .. +0.0021 rad), the zig-zag ends 20 mm above the cap; with a starting penalty of 100 the
-/// same fit reaches 0.8 mm RMS and positive defects everywhere, and 8 x 8 reaches 0.2 mm. The start's
-/// grading matters little (grading 0, 0.3 and 1 end within 3 % of one another): the fit grades the cells.
-/// Steep domes remain fragile: on a 14 m square of an R = 20 m cap (30 deg slope at the corners) the
-/// plan drape starts with Kawasaki residuals of 0.25-0.3 rad, phase 1 wanders 0.3-1 m off the target,
-/// and only about a third of the (cells 8-12, sector angle 60/65 deg, fold depth 0.3-0.5 m) choices
-/// converge, which ones depending on the start; shallow folds (depth under about 0.4 of the cell's
-/// half-length) failed most. Draping by arc length from the centre cut the start's Kawasaki residual
-/// threefold but converged no more often; a flat, exactly feasible start converged but stayed flat.
+/// The fit starts with a small penalty (<see cref="InitialPenalty"/>): the constraints' projection of the drape
+/// follows the dome only across the zig-zag, and reaching it along the zig-zag is a long walk on the constraint
+/// set that a stiff penalty freezes. Steep domes (about 30 deg slope) remain fragile. Measurements: docs/decisions.md.
 /// </remarks>
 public static class ReverseCurvatureGenerator
 {

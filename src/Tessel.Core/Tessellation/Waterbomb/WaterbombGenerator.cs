@@ -5,7 +5,7 @@ using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Core.Tessellation.Waterbomb;
 
-/// <summary>The waterbomb tessellation (J. Comput. Des. Eng. 5(4), 2018, via geometry.md section 3):
+/// <summary>The waterbomb tessellation (J. Comput. Des. Eng. 5(4), 2018, via docs/reference/geometry.md section 3):
 /// waterbomb bases (a degree-6 vertex: four diagonals and the two halves of a midline) side by side in
 /// rows along x, every other row shifted by half a base, all facets triangles.</summary>
 /// <remarks>
@@ -26,10 +26,9 @@ namespace Tessel.Core.Tessellation.Waterbomb;
 /// the tuck dents the two facets beside each midline into a valley too, so every crease starts with
 /// its waterbomb sign and none starts flat (a smooth start has no developability gradient, see
 /// DEVELOPERS.md). On a plane one tuck (<see cref="DevelopableTuck"/>) makes every interior vertex
-/// developable. On a curved target that tuck leaves large defects (0.23 rad measured on a 1.5 m sphere
-/// with 0.25 m bases), so the drape is graded: each base gets the tuck that closes its own centre's angle
-/// sum on the target, and each grid vertex the mean of its bases' tucks (0.019 rad left there, and the fit
-/// then lands 3.1 mm RMS from the sphere instead of 5.9 mm). The fit removes the rest.
+/// developable. On a curved target that one tuck leaves large defects, so the drape is graded: each base gets
+/// the tuck that closes its own centre's angle sum on the target, and each grid vertex the mean of its bases'
+/// tucks; the fit removes the rest (measurements in docs/decisions.md).
 /// </remarks>
 public static class WaterbombGenerator
 {

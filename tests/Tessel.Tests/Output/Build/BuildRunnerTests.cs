@@ -109,18 +109,18 @@ public class BuildRunnerTests
         using var summary = JsonDocument.Parse(File.ReadAllText(Path.Combine(a, "summary.json")));
         var fit = summary.RootElement.GetProperty("figures").GetProperty("fit");
         Assert.True(fit.GetProperty("converged").GetBoolean());
-        // Developability, Kawasaki and planarity at epsilon = 0 (geometry.md section 1: Hull 2020;
+        // Developability, Kawasaki and planarity at epsilon = 0 (docs/reference/geometry.md section 1: Hull 2020;
         // Kawasaki 1989; Justin 1986), all to 1e-9.
         Assert.True(fit.GetProperty("maxDevelopabilityRad").GetDouble() <= 1e-9);
         Assert.True(fit.GetProperty("maxKawasakiRad").GetDouble() <= 1e-9);
         Assert.True(fit.GetProperty("maxPlanarityScaled").GetDouble() <= 1e-9);
         var checks = summary.RootElement.GetProperty("figures").GetProperty("checks");
         Assert.Equal(0, checks.GetProperty("collisions").GetInt64());
-        // Each bundled pattern folds rigidly from near-flat to its fitted state (geometry.md section 4).
+        // Each bundled pattern folds rigidly from near-flat to its fitted state (docs/reference/geometry.md section 4).
         Assert.True(checks.GetProperty("pathReachedNearFlat").GetBoolean(), checks.GetProperty("pathStopTowardFlat").GetString());
         if (job.Tessellation.Family == "reverse-curvature")
         {
-            // The family's acceptance (geometry.md section 3): a positive angle defect at every interior
+            // The family's acceptance (docs/reference/geometry.md section 3): a positive angle defect at every interior
             // vertex of the envelope through the top layer.
             long interior = checks.GetProperty("envelopeInteriorVertices").GetInt64();
             Assert.True(interior > 0);

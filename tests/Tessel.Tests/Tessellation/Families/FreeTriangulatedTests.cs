@@ -105,7 +105,7 @@ public class FreeTriangulatedTests
 
     [Theory]
     // share, bar-and-hinge DOF of the fitted net, largest shape RMS (m).
-    // Share 0: a generic triangulated disk has DOF = boundary vertices - 3 = 24 - 3 = 21 (geometry.md
+    // Share 0: a generic triangulated disk has DOF = boundary vertices - 3 = 24 - 3 = 21 (docs/reference/geometry.md
     // section 4, derived there). Share 1: every interior vertex is a degree-4 developable vertex between
     // planar panels without Kawasaki's condition; such a quad mesh is generically rigid (Tachi, J. IASS
     // 50(3), 2009, where only the flat-foldable or special cases flex): DOF 0. Share 0.5: 3, measured
@@ -118,7 +118,7 @@ public class FreeTriangulatedTests
         var g = FreeTriangulatedGenerator.Generate(Cap, new FreeTriangulatedParameters(6, 6, FlatDiagonalShare: share));
         var r = MultiStartFitter.Fit(g, Cap, new FitSettings { Seed = 1 });
         Assert.True(r.Converged, r.StopReason);
-        // Developable at eps = 0 and planar panels, to 1e-9 (geometry.md section 1).
+        // Developable at eps = 0 and planar panels, to 1e-9 (docs/reference/geometry.md section 1).
         Assert.InRange(r.Residuals.MaxDevelopability, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxPlanarity, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxBoundViolation, 0, 1e-9);

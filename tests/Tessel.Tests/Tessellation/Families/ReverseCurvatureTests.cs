@@ -62,13 +62,13 @@ public class ReverseCurvatureTests
         var r = MultiStartFitter.Fit(g, Dome, new FitSettings { Seed = 1 });
         Assert.True(r.Converged, r.StopReason);
         // Developability and flat-foldability (Kawasaki 1989, Justin 1986) and planar facets, at eps = 0
-        // to 1e-9 rad / scaled triple product (geometry.md section 1).
+        // to 1e-9 rad / scaled triple product (docs/reference/geometry.md section 1).
         Assert.InRange(r.Residuals.MaxDevelopability, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxKawasaki, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxPlanarity, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxBoundViolation, 0, 1e-9);
         Assert.InRange(r.Shape.Rms, 0, maxRms);
-        // Acceptance (geometry.md section 3): the envelope through the top vertices is synclastic, i.e.
+        // Acceptance (docs/reference/geometry.md section 3): the envelope through the top vertices is synclastic, i.e.
         // its angle defect (discrete Gaussian curvature) is positive at every interior vertex. Measured
         // 0.0018 .. 0.0048 rad at 4 x 4 and 0.00063 .. 0.0017 rad at 8 x 8 (the target's K A: 0.0039
         // and 0.00098 rad; seeds 2-4 kept every defect positive too, the smallest 0.0001 rad); with the
