@@ -43,13 +43,13 @@ public static class ReportAssembly
             rows.Add(new("Cut / score / perforation", $"{M(sf.TotalCutLengthMm)} / {M(sf.ScoreLengthMm + sf.BackScoreLengthMm)} / {M(sf.PerforationCutLengthMm)} m"));
             rows.Add(new("Laser time (estimate)", $"{(sf.EstimatedLaserSeconds / 60).ToString("0.#", Inv)} min"));
         }
-        var front = fit.Front.Select(p => new ParetoPoint(p.EpsilonDeg, p.ShapeRms, Math.Abs(p.EpsilonDeg - f.EpsilonDeg) < 1e-12)).ToArray();
         var keyframes = checks.Path.Keyframes
             .Select(k => new FoldKeyframe(k.Progress, AlignToFitted(k.Positions, mesh.Positions))).ToArray();
         return model with
         {
             Description = job.Description ?? "",
-            ParetoFront = front,
+            ParetoFront = [.. fit.Front],
+            ChosenEpsilonDeg = fit.Front.Count > 0 ? f.EpsilonDeg : null,
             ParetoNote = ParetoNote(job, fit),
             Convergence = f.History.Select(h => new ConvergenceStep(h.Index, h.Objective,
                 Math.Max(Math.Max(h.MaxPlanarity, h.MaxKawasaki), Math.Max(h.MaxDevelopabilityExcess, h.MaxBoundViolation)))).ToArray(),

@@ -65,7 +65,7 @@ public static class HtmlReportWriter
         Figure(sb, CreasePatternPreview.Render(model), "Flat crease pattern: solid rust = mountain, dashed blue = valley.");
         // Plots of what this build did not compute are left out rather than drawn empty.
         if (model.ParetoFront.Length > 0)
-            Figure(sb, ParetoPlot.Render(model.ParetoFront), "Shape error against the developability tolerance of each fit. " + model.ParetoNote);
+            Figure(sb, ParetoPlot.Render(model.ParetoFront, model.ChosenEpsilonDeg), "Shape error against the developability tolerance of each fit. " + model.ParetoNote);
         if (model.Convergence.Length > 0)
             Figure(sb, ConvergencePlot.Render(model.Convergence), "Solver convergence of the fit used for the sheets: largest constraint residual in radians and the dimensionless objective, per solver step, on a logarithmic scale.");
         sb.Append("</div>\n</section>\n");

@@ -30,9 +30,9 @@ public static class MarkdownSummaryWriter
         if (model.ParetoFront.Length > 0)
         {
             sb.Append("## Accuracy against buildability\n\n| tolerance (deg) | shape error RMS (mm, full scale) | chosen |\n| ---: | ---: | :---: |\n");
-            foreach (var p in model.ParetoFront.OrderBy(p => p.ToleranceDeg))
-                sb.Append("| ").Append(p.ToleranceDeg.ToString("0.###", CultureInfo.InvariantCulture)).Append(" | ")
-                  .Append(DeviationFormat.Mm(p.ShapeErrorM * 1000)).Append(" | ").Append(p.Chosen ? "yes" : "").Append(" |\n");
+            foreach (var p in model.ParetoFront.OrderBy(p => p.EpsilonDeg))
+                sb.Append("| ").Append(p.EpsilonDeg.ToString("0.###", CultureInfo.InvariantCulture)).Append(" | ")
+                  .Append(DeviationFormat.Mm(p.ShapeRms * 1000)).Append(" | ").Append(model.ChosenEpsilonDeg is double chosen && Math.Abs(p.EpsilonDeg - chosen) < 1e-12 ? "yes" : "").Append(" |\n");
             sb.Append('\n');
         }
 

@@ -1,9 +1,10 @@
 using SkiaSharp;
+using Tessel.Core.Fitting;
 
 namespace Tessel.Output.Report;
 
 /// <summary>The accuracy/buildability trade-off: shape error (mm, full scale) against the developability
-/// tolerance each fit was run with. Points are joined in tolerance order; the chosen fit is ringed.</summary>
+/// tolerance each fit was run with. Points are joined in tolerance order; the fit the build went on with is ringed.</summary>
 public static class ParetoPlot
 {
     /// <summary>Colour of the point markers (tests look for it at the predicted pixels).</summary>
@@ -21,7 +22,7 @@ public static class ParetoPlot
     }
 
     /// <summary>Renders the plot; with no points it draws the axes and says so.</summary>
-    public static PreviewImage Render(ParetoPoint[] points, int width = 640, int height = 420)
+    public static PreviewImage Render(ParetoPoint[] points, double? chosenEpsilonDeg = null, int width = 640, int height = 420)
     {
         using var pc = new PreviewCanvas(width, height);
         var axes = AxesFor(points, width, height);
@@ -37,18 +38,18 @@ public static class ParetoPlot
             return new PreviewImage(pc.ToPng(), width, height);
         }
 
-        var sorted = points.Select((p, i) => (p, i)).OrderBy(t => t.p.ToleranceDeg).ThenBy(t => t.i).Select(t => t.p).ToArray();
+        var sorted = points.Select((p, i) => (p, i)).OrderBy(t => t.p.EpsilonDeg).ThenBy(t => t.i).Select(t => t.p).ToArray();
         using var line = PreviewCanvas.Stroke(new SKColor(120, 120, 128), 1.5f);
         for (int i = 1; i < sorted.Length; i++)
-            pc.Canvas.DrawLine(axes.MapX(sorted[i - 1].ToleranceDeg), axes.MapY(sorted[i - 1].ShapeErrorM * 1000),
-                axes.MapX(sorted[i].ToleranceDeg), axes.MapY(sorted[i].ShapeErrorM * 1000), line);
+            pc.Canvas.DrawLine(axes.MapX(sorted[i - 1].EpsilonDeg), axes.MapY(sorted[i - 1].ShapeRms * 1000),
+                axes.MapX(sorted[i].EpsilonDeg), axes.MapY(sorted[i].ShapeRms * 1000), line);
         using var marker = PreviewCanvas.Fill(MarkerColour);
         using var ring = PreviewCanvas.Stroke(ChosenColour, 2.5f);
         foreach (var p in sorted)
         {
-            float x = axes.MapX(p.ToleranceDeg), y = axes.MapY(p.ShapeErrorM * 1000);
+            float x = axes.MapX(p.EpsilonDeg), y = axes.MapY(p.ShapeRms * 1000);
             pc.Canvas.DrawCircle(x, y, 4.5f, marker);
-            if (p.Chosen)
+            if (chosenEpsilonDeg is double chosen && Math.Abs(p.EpsilonDeg - chosen) < 1e-12)
             {
                 pc.Canvas.DrawCircle(x, y, 9, ring);
                 pc.Text("chosen", x + 12, y - 10, 12, ChosenColour);
@@ -58,8 +59,8 @@ public static class ParetoPlot
     }
 
     private static (double, double, double[]) XTicks(ParetoPoint[] p) =>
-        NiceTicks.For(p.Length == 0 ? 0 : Math.Min(0, p.Min(q => q.ToleranceDeg)), p.Length == 0 ? 1 : Math.Max(p.Max(q => q.ToleranceDeg), 1e-9));
+        NiceTicks.For(p.Length == 0 ? 0 : Math.Min(0, p.Min(q => q.EpsilonDeg)), p.Length == 0 ? 1 : Math.Max(p.Max(q => q.EpsilonDeg), 1e-9));
 
     private static (double, double, double[]) YTicks(ParetoPoint[] p) =>
-        NiceTicks.For(p.Length == 0 ? 0 : Math.Min(0, p.Min(q => q.ShapeErrorM) * 1000), p.Length == 0 ? 1 : Math.Max(p.Max(q => q.ShapeErrorM) * 1000, 1e-9));
+        NiceTicks.For(p.Length == 0 ? 0 : Math.Min(0, p.Min(q => q.ShapeRms) * 1000), p.Length == 0 ? 1 : Math.Max(p.Max(q => q.ShapeRms) * 1000, 1e-9));
 }

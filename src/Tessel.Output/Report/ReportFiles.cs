@@ -38,7 +38,7 @@ public static class ReportFiles
             preview.Image.Png,
             CreasePatternPreview.Render(model).Png,
             // Plots of what was not computed are not written.
-            model.ParetoFront.Length > 0 ? ParetoPlot.Render(model.ParetoFront).Png : null,
+            model.ParetoFront.Length > 0 ? ParetoPlot.Render(model.ParetoFront, model.ChosenEpsilonDeg).Png : null,
             model.Convergence.Length > 0 ? ConvergencePlot.Render(model.Convergence).Png : null,
         ];
         return Names.Select((n, i) => (n, contents[i])).Where(c => c.Item2 is not null).Select(c => (c.n, c.Item2!)).ToArray();

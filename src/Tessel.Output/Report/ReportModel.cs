@@ -1,3 +1,4 @@
+using Tessel.Core.Fitting;
 using Tessel.Core.Model;
 using Tessel.Core.Sheets;
 using Tessel.Core.Tessellation;
@@ -34,6 +35,8 @@ public sealed record ReportModel
     public required double[] FlatPositions { get; init; }
     /// <summary>Fits on the accuracy/buildability trade-off curve (may be empty).</summary>
     public ParetoPoint[] ParetoFront { get; init; } = [];
+    /// <summary>Epsilon of the fit the build went on with, ringed in the plot; null when there is no front.</summary>
+    public double? ChosenEpsilonDeg { get; init; }
     /// <summary>Says how the trade-off points relate to the fit used for the sheets (empty without a sweep).</summary>
     public string ParetoNote { get; init; } = "";
     /// <summary>Every file of the build, relative to the report, in the order written (may be empty).</summary>

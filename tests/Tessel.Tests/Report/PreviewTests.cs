@@ -1,4 +1,5 @@
 using SkiaSharp;
+using Tessel.Core.Fitting;
 using Tessel.Output.Report;
 
 namespace Tessel.Tests.Report;
@@ -76,8 +77,8 @@ public class PreviewTests
     [Fact]
     public void ParetoPlotPutsKnownPointsAtTheExpectedPixels()
     {
-        ParetoPoint[] pts = [new(0, 0.021), new(1, 0.008, Chosen: true), new(2, 0.005), new(4, 0.004)];
-        var img = ParetoPlot.Render(pts);
+        ParetoPoint[] pts = [ReportDemoData.Front(0, 0.021), ReportDemoData.Front(1, 0.008), ReportDemoData.Front(2, 0.005), ReportDemoData.Front(4, 0.004)];
+        var img = ParetoPlot.Render(pts, chosenEpsilonDeg: 1);
         var axes = ParetoPlot.AxesFor(pts);
         // Expected by hand: plot area 84..616 x 44..360 px in a 640 x 420 image; x ticks 0..4 step 1,
         // y ticks 0..25 mm step 5 (largest error 21 mm; 21/5 = 4.2 rounds up to a step of 5).
@@ -91,8 +92,8 @@ public class PreviewTests
         using var bmp = PreviewPixels.Decode(img.Png);
         for (int i = 0; i < pts.Length; i++)
         {
-            Assert.Equal(expected[i].X, axes.MapX(pts[i].ToleranceDeg), 3);
-            Assert.Equal(expected[i].Y, axes.MapY(pts[i].ShapeErrorM * 1000), 3);
+            Assert.Equal(expected[i].X, axes.MapX(pts[i].EpsilonDeg), 3);
+            Assert.Equal(expected[i].Y, axes.MapY(pts[i].ShapeRms * 1000), 3);
             var c = bmp.GetPixel((int)Math.Floor(expected[i].X), (int)Math.Floor(expected[i].Y));
             Assert.True(PreviewPixels.Distance(c, ParetoPlot.MarkerColour) <= 12, $"point {i}: {c} at {expected[i]}");
         }

@@ -1,3 +1,4 @@
+using Tessel.Core.Fitting;
 using Tessel.Core.Geometry;
 using Tessel.Core.Model;
 using Tessel.Core.Sheets;
@@ -13,6 +14,9 @@ namespace Tessel.Tests.Report;
 /// synthetic, for display only.</summary>
 internal static class ReportDemoData
 {
+    /// <summary>A trade-off point with only the plotted values (epsilon, shape RMS) set; invented demo data.</summary>
+    public static ParetoPoint Front(double epsilonDeg, double shapeRmsM) => new(epsilonDeg, shapeRmsM, shapeRmsM, 0, 0, 0, 0, true);
+
     public const double Deg = Math.PI / 180;
     public const double Scale = 50;
     public const int CellsX = 5, CellsY = 4;
@@ -48,8 +52,9 @@ internal static class ReportDemoData
             Description = "Miura canopy module for an invented courtyard, <test> & \"quotes\" </script> kept as text.",
             ParetoFront =
             [
-                new(0.0, 0.0210), new(0.5, 0.0123), new(1.0, 0.0081, Chosen: true), new(2.0, 0.0052), new(4.0, 0.0040),
+                Front(0.0, 0.0210), Front(0.5, 0.0123), Front(1.0, 0.0081), Front(2.0, 0.0052), Front(4.0, 0.0040),
             ],
+            ChosenEpsilonDeg = 1.0,
             Convergence = Enumerable.Range(0, 25).Select(i => new ConvergenceStep(i, 3.0 * Math.Pow(0.55, i) + 1e-9, 0.4 * Math.Pow(0.42, i))).ToArray(),
             Keyframes = keyframes.ToArray(),
             Summary =
