@@ -5,13 +5,7 @@ namespace Tessel.Tests.Cli;
 
 public class ProgramTests
 {
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = Program.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => InProcessCli.Run(args);
 
     [Fact]
     public void BuildWithoutAJobBuildsTheBundledDemo()

@@ -7,13 +7,7 @@ namespace Tessel.Tests.Cli;
 /// its target; height-map and mesh scaffolds come with an example input that the build reads.</summary>
 public class ScaffoldBuildTests
 {
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = Program.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => InProcessCli.Run(args);
 
     // Every target kind x family (Catalog.TargetKinds x Catalog.Families; a test below checks the list
     // is complete). No row is skipped: every pair builds or is refused naming a suited family.

@@ -8,13 +8,7 @@ namespace Tessel.Tests.Cli;
 /// they typed and what to do, with no parser internals or type names.</summary>
 public class WordingTests
 {
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = Program.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => InProcessCli.Run(args);
 
     private static string[] Lines(string text) => text.TrimEnd().Split('\n');
 

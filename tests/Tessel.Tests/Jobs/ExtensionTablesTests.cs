@@ -5,6 +5,8 @@ using Tessel.Core.Jobs;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
 
+using Tessel.Tests.Cli;
+
 namespace Tessel.Tests.Jobs;
 
 /// <summary>Every registered target kind and family reaches each place a user meets it: the catalog,
@@ -14,13 +16,7 @@ public class ExtensionTablesTests
 {
     private static readonly string SchemaPath = Path.Combine(TestPaths.Patterns, "tessel-job.schema.json");
 
-    private static (int Code, string Out, string Err) Run(params string[] args)
-    {
-        var o = new StringWriter();
-        var e = new StringWriter();
-        int code = Program.Run(args, o, e);
-        return (code, o.ToString(), e.ToString());
-    }
+    private static (int Code, string Out, string Err) Run(params string[] args) => InProcessCli.Run(args);
 
     [Fact]
     public void TheLoaderReadsTheStagesOwnTables()
