@@ -31,9 +31,14 @@ internal static class ReleaseCli
     }
 
     /// <summary>Starts `dotnet tessel.dll args` with output captured line by line.</summary>
+    /// <remarks>Through `env --default-signal=INT` (which execs, so the process id stays the child's): a test
+    /// run started in the background inherits SIGINT ignored, and the .NET runtime then leaves it ignored,
+    /// so the Ctrl-C tests would see no signal.</remarks>
     public static Child Start(IEnumerable<string> args, IDictionary<string, string>? environment = null)
     {
-        var start = new ProcessStartInfo("dotnet") { RedirectStandardOutput = true, RedirectStandardError = true };
+        var start = new ProcessStartInfo("env") { RedirectStandardOutput = true, RedirectStandardError = true };
+        start.ArgumentList.Add("--default-signal=INT");
+        start.ArgumentList.Add("dotnet");
         start.ArgumentList.Add(Dll);
         foreach (var a in args) start.ArgumentList.Add(a);
         if (environment is not null) foreach (var (k, v) in environment) start.Environment[k] = v;
