@@ -32,6 +32,7 @@ internal sealed class FitRows
     private readonly double _fairnessRoot;
     private readonly VertexStar[] _stars;
     private readonly int[] _aux;
+    private readonly double[] _cornerScale;
 
     public FitRows(GeneratedPattern pattern, ITargetSurface target, double foldDepth, FitSettings s)
     {
@@ -95,6 +96,22 @@ internal sealed class FitRows
                 if (role == CreaseRole.Mountain) Add(ResidualKind.FoldAngleBound, min, max, e, a, b, l, r);
                 else Add(ResidualKind.FoldAngleBound, -max, -min, e, a, b, l, r);
             }
+
+        // Opposite corners of each quad turn the same way. Only with the planarity rows, which already
+        // couple a quad's four corners (no new entries in the normal matrix); inactive on every sound facet.
+        var cornerScale = new List<double>();
+        if (cons.HasFlag(FamilyConstraints.QuadPlanarity))
+            foreach (var f in mesh.Faces)
+            {
+                if (f.Length != 4) continue;
+                for (int k = 0; k < 2; k++)
+                {
+                    int a = f[k], b = f[k + 1], c = f[k + 2], d = f[(k + 3) % 4];
+                    Add(ResidualKind.FacetCornerOrder, 0, double.PositiveInfinity, cornerScale.Count, a, b, c, d);
+                    cornerScale.Add(FacetCornerOrder.Scale(mesh.Positions, a, b, c, d));
+                }
+            }
+        _cornerScale = cornerScale.ToArray();
 
         Kind = kind.ToArray(); Start = start.ToArray(); Vertices = verts.ToArray();
         Lo = lo.ToArray(); Hi = hi.ToArray(); _aux = aux.ToArray();
@@ -167,6 +184,8 @@ internal sealed class FitRows
             }
             case ResidualKind.FoldAngleBound:
                 return FoldAngle.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], gr);
+            case ResidualKind.FacetCornerOrder:
+                return FacetCornerOrder.Evaluate(xyz, vs[0], vs[1], vs[2], vs[3], _cornerScale[_aux[r]], gr);
             default:
                 throw new InvalidOperationException($"row kind {Kind[r]} has no evaluator");
         }

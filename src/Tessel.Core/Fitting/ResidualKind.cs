@@ -21,4 +21,6 @@ public enum ResidualKind
     EdgeLengthBound,
     /// <summary>Bound: a crease's signed fold angle keeps its role's sign, away from flat and from closed.</summary>
     FoldAngleBound,
+    /// <summary>Bound: two opposite corners of a quad facet turn the same way (no reflex corner, no crossed facet).</summary>
+    FacetCornerOrder,
 }

@@ -1,4 +1,5 @@
 using Tessel.Core.Fitting;
+using Tessel.Core.Fitting.Residuals;
 using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Geometry;
 using Tessel.Core.Targets;
@@ -47,6 +48,40 @@ public class EpsilonConstraintFitterTests
                 Assert.Equal(0.04, h, 9);
                 Assert.Equal(60 * Deg, gamma, 6);
             }
+    }
+
+    [Fact]
+    public void ACornerFacetTurnedInsideOutIsNotBuildable()
+    {
+        // A corner vertex belongs to one facet and to no developability or Kawasaki row; moved within its
+        // facet's plane past the diagonal, the facet becomes an arrowhead (reflex corner) whose unsigned
+        // corner angles all lie inside the sector-angle bounds. Only the corner-order rows see it, so a fit
+        // that ends like this is not called buildable (the flat layout would turn the facet over).
+        var target = new PlaneSurface(Footprint.Rectangle(1.0, 0.8), height: 0.3);
+        var pattern = MiuraGenerator.Generate(target, new MiuraParameters(CellsX: 5, CellsY: 4, SectorAngleDeg: 60, FoldDepth: 0.04));
+        var mesh = pattern.Mesh;
+        int[] f = mesh.Faces[Array.FindIndex(mesh.Faces, face => face.Contains(0))];
+        int k = Array.IndexOf(f, 0);
+        var (a, b, c, d) = (mesh.Vertex(f[k]), mesh.Vertex(f[(k + 1) % 4]), mesh.Vertex(f[(k + 2) % 4]), mesh.Vertex(f[(k + 3) % 4]));
+        var middle = 0.5 * (b + d);
+        var moved = (double[])mesh.Positions.Clone();
+        var settings = new FitSettings();
+        var corner = middle + 0.5 * (middle - a);
+        corner.Write(moved, 0);
+        Assert.InRange(Vec3.Angle(b - corner, d - corner) / Deg, settings.MinSectorAngleDeg, settings.MaxSectorAngleDeg);
+
+        var drape = EpsilonConstraintFitter.Measure(pattern, target, settings, mesh.Positions);
+        var turned = EpsilonConstraintFitter.Measure(pattern, target, settings, moved);
+
+        Assert.True(drape.Buildable, drape.Residuals.ToString());
+        Assert.False(turned.Buildable);
+        // The corner-order value of the arrowhead, worked from its corners: n_a . n_c over the drape's
+        // four corner edge lengths is negative, and the violation is its size.
+        var g = new double[12];
+        double scale = FacetCornerOrder.Scale(mesh.Positions, f[k], f[(k + 1) % 4], f[(k + 2) % 4], f[(k + 3) % 4]);
+        double value = FacetCornerOrder.Evaluate(moved, f[k], f[(k + 1) % 4], f[(k + 2) % 4], f[(k + 3) % 4], scale, g);
+        Assert.True(value < 0, $"{value}");
+        Assert.Equal(-value, turned.Residuals.MaxBoundViolation, 12);
     }
 
     [Fact]

@@ -52,6 +52,30 @@ public class ResidualGradientTests
         CheckGradient((x, g) => FoldAngle.Evaluate(x, 0, 1, 2, 4, g), RandomPoints(5, 3), [0, 1, 2, 4]);
 
     [Fact]
+    public void FacetCornerOrder_MatchesCentralDifferences() =>
+        CheckGradient((x, g) => FacetCornerOrder.Evaluate(x, 1, 2, 3, 4, 1.7, g), RandomPoints(5, 5), [1, 2, 3, 4]);
+
+    [Fact]
+    public void FacetCornerOrderIsSinSquaredOnAParallelogramAndNegativeOnReflexAndCrossedQuads()
+    {
+        // Worked by hand: opposite corners of a planar parallelogram with sides 2 and 1 and a 60 deg angle
+        // give sin^2(60 deg) = 0.75 once divided by the four corner edge lengths (2 * 1 * 2 * 1 = 4).
+        double s = Math.Sqrt(3) / 2;
+        double[] parallelogram = [0, 0, 0, 2, 0, 0, 2.5, s, 0, 0.5, s, 0];
+        var g = new double[12];
+        double scale = FacetCornerOrder.Scale(parallelogram, 0, 1, 2, 3);
+        Assert.Equal(4, scale, 12);
+        Assert.Equal(0.75, FacetCornerOrder.Evaluate(parallelogram, 0, 1, 2, 3, scale, g), 12);
+        // An arrowhead: the corner at (1, 0.5) is reflex (about 233 deg), so it turns against (1, 2).
+        double[] arrow = [0, 0, 0, 1, 0.5, 0, 2, 0, 0, 1, 2, 0];
+        Assert.True(FacetCornerOrder.Evaluate(arrow, 1, 2, 3, 0, 1, g) < 0);
+        // A bow-tie (0,0) (1,1) (1,0) (0,1): its edges cross, and both pairs of opposite corners disagree.
+        double[] bowTie = [0, 0, 0, 1, 1, 0, 1, 0, 0, 0, 1, 0];
+        Assert.True(FacetCornerOrder.Evaluate(bowTie, 0, 1, 2, 3, 1, g) < 0);
+        Assert.True(FacetCornerOrder.Evaluate(bowTie, 1, 2, 3, 0, 1, g) < 0);
+    }
+
+    [Fact]
     public void KawasakiAndDevelopability_MatchCentralDifferences()
     {
         var star = new VertexStar(0, [1, 2, 3, 4]);
