@@ -74,6 +74,7 @@ public static class BuildPipeline
 
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
+        if (tessellation.FoldRepair is { } repair) warnings.Add(repair.Message);
         if (tessellation.Follow is { CanFollow: false, Message: { } followWarning }) warnings.Add(followWarning);
         warnings.AddRange(fit.Fit.Adjustments);
         if (fit.Fit.Buildable && !fit.Fit.Converged)

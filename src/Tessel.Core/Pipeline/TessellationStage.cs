@@ -17,6 +17,10 @@ public sealed record TessellationStageResult(GeneratedPattern Pattern, FamilyAdv
     /// <summary>Whether the family can bend as tightly as the target at the job's cells (judged before
     /// the fit), and the change that would let it; null where no estimate was made.</summary>
     public FollowEstimate? Follow { get; init; }
+    /// <summary>A change the family made to its parameters before the fit so that its creases fold at least
+    /// the job's minimum (<see cref="TessellationFamily.DeepenShallowFolds"/>), or why it could not; null
+    /// when none was needed.</summary>
+    public ShallowFoldRepair? FoldRepair { get; init; }
 }
 
 /// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
@@ -37,6 +41,12 @@ public static class TessellationStage
         var p = new FamilyParameters(spec.CellsX, spec.CellsY, spec.CellSize * metres, spec.SectorAngleDeg,
             spec.FoldDepth is double d ? d * metres : DefaultFoldDepth(family, target.Footprint, spec, metres),
             spec.OrientationDeg, spec.FlatDiagonalShare);
+        var repair = ShallowFolds(family, target, p, job.Fitting.Bounds.MinFoldAngleDeg);
+        if (repair is not null)
+        {
+            progress.Step(repair.Message);
+            p = repair.Parameters ?? p;
+        }
         var follow = advice.Suits ? FollowEstimate.Check(spec.Family, target, p, curvature, depthScalesWithCells: spec.FoldDepth is null) : null;
         if (follow is { CanFollow: false, Message: { } warning }) progress.Step(warning);
         try
@@ -49,12 +59,21 @@ public static class TessellationStage
             if (pieces > 1)
                 throw new JobError(spec.CellsX is null && spec.CellSize is not null ? "tessellation.cellSize" : "tessellation.cellsX",
                     $"the {spec.Family} pattern falls into {pieces} pieces on this footprint (facets meet only at corners where the footprint narrows); use smaller cells (more cellsX and cellsY) or a wider footprint");
-            return new TessellationStageResult(pattern, advice) { Follow = follow, DrapeOn = surface => family.Generate(surface, p with { BuildableStart = true }) };
+            return new TessellationStageResult(pattern, advice) { Follow = follow, FoldRepair = repair, DrapeOn = surface => family.Generate(surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)
         {
             throw new JobError("tessellation." + FieldOf(e.ParamName), FirstLine(e.Message));
         }
+    }
+
+    /// <summary>The family's repair of folds shallower than the job's minimum, before any fitting; null when
+    /// none is needed or the parameters make no pattern (the generator reports that next).</summary>
+    private static ShallowFoldRepair? ShallowFolds(TessellationFamily family, ITargetSurface target, FamilyParameters p, double minFoldAngleDeg)
+    {
+        if (!(minFoldAngleDeg > 0)) return null;
+        try { return family.DeepenShallowFolds(target, p, minFoldAngleDeg * Math.PI / 180); }
+        catch (ArgumentException) { return null; }
     }
 
     /// <summary>The family's fold depth for the job's plan cell size (cells given, or the cell size,

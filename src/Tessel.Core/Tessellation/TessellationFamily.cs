@@ -31,6 +31,13 @@ public abstract class TessellationFamily : FamilyInfo
     /// <see cref="ArgumentException"/> where the parameters make no cell.</summary>
     public abstract double? TurnLimit(Footprint footprint, FamilyParameters p);
 
+    /// <summary>For a family whose generated state is already its folded answer (built in closed form, so the
+    /// fit cannot deepen a fold without leaving the target), other parameters whose every crease folds at
+    /// least <paramref name="minFoldAngle"/> radians when the job's do not; null when the job's do, or
+    /// when the family leaves its fold angles to the fit. May throw <see cref="ArgumentException"/> where
+    /// the parameters make no pattern (the generator then says so).</summary>
+    public virtual ShallowFoldRepair? DeepenShallowFolds(ITargetSurface target, FamilyParameters p, double minFoldAngle) => null;
+
     /// <summary>False for a family with one vertex layer, where the fold depth means nothing.</summary>
     public virtual bool HasFoldDepth => true;
 

@@ -27,6 +27,29 @@ public class BuildPipelineTests
     }
 
     [Fact]
+    public void AYoshimuraVaultWithTooShallowFoldsIsBuiltWithMoreRingsAndSaysSo()
+    {
+        // The ferry shelter's vault (invented) at 18 x 18 cells: its closed form folds the ring creases
+        // 0.52 deg, under the default 1 deg minimum. The tessellation raises the ring count before the fit
+        // and the build finishes buildable with every fold within the bounds.
+        var job = JobLoader.Parse("""
+            { "name": "ferry-shelter", "seed": 2,
+              "target": { "kind": "cylinder", "radius": 4.2, "rise": 1.2, "footprint": { "width": 5, "depth": 3.6 } },
+              "tessellation": { "family": "yoshimura", "cellsX": 18, "cellsY": 18 },
+              "fabrication": { "scale": 40, "sheet": { "name": "A1" } },
+              "outputs": { "obj": false, "png": false, "svg": false, "dxf": false, "pdf": false, "report": false } }
+            """, "ferry-shelter.json", Path.GetTempPath());
+        var r = BuildPipeline.Run(job, null, ProgressReporter.Silent);
+
+        Assert.Null(r.Problem);
+        Assert.True(r.Fit.Fit.Buildable && r.Fit.Fit.Converged, r.Fit.Fit.StopReason);
+        Assert.Equal(38, r.Tessellation.FoldRepair!.Parameters!.CellsX);
+        Assert.Contains(r.Warnings, w => w.Contains("tessellation.cellsX raised to 38 rings", StringComparison.Ordinal));
+        Assert.Equal(0, r.Checks!.FoldBounds!.Violations);
+        Assert.InRange(r.Fit.Fit.Shape.Rms, 0, 1e-6); // the closed form lies on the cylinder
+    }
+
+    [Fact]
     public void MiuraOnASaddleBuildsCompletelyWithoutWarnings()
     {
         var r = BuildPipeline.Run(JobFor(Saddle, "miura", """{ "scale": 20, "sheet": { "name": "A3" } }"""), null, ProgressReporter.Silent);

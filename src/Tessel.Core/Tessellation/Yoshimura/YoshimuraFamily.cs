@@ -9,7 +9,56 @@ public sealed class YoshimuraFamily : TessellationFamily
     public override string Summary => "barrel vaults and cylinders (one direction curved, K = 0), folded in closed form; parameters: rings along the axis, triangles across the arc, or cell size.";
 
     public override GeneratedPattern Generate(ITargetSurface target, FamilyParameters p) =>
-        YoshimuraGenerator.Generate(target, new YoshimuraParameters(p.CellsY, p.CellsX, p.CellSize));
+        YoshimuraGenerator.Generate(target, Own(p));
+
+    private static YoshimuraParameters Own(FamilyParameters p) => new(p.CellsY, p.CellsX, p.CellSize);
+
+    /// <summary>A repair aims this far above the minimum fold, so that the fit keeps room to move (derived
+    /// here, no source).</summary>
+    public const double FoldMargin = 1.1;
+
+    /// <summary>The closed form's shallowest folds are the ring creases (the triangle bases), and they
+    /// deepen as the rings come closer: with R 3.5 m across a 4 m wide arc and 20 segments, 0.31, 0.62 and
+    /// 1.24 deg at 10, 20 and 40 rings (measured on the generated pattern). So the repair raises the ring
+    /// count (tessellation.cellsX) to the first that folds every crease <see cref="FoldMargin"/> times the
+    /// minimum, up to <see cref="FollowEstimate.MaxSuggestedCells"/>; failing that it lowers the segment
+    /// count (wider triangles fold their bases more).</summary>
+    public override ShallowFoldRepair? DeepenShallowFolds(ITargetSurface target, FamilyParameters p, double minFoldAngle)
+    {
+        var (segments, rings) = YoshimuraGenerator.Counts(target, Own(p));
+        double shallowest = ShallowestFold(Generate(target, p).Mesh);
+        if (shallowest >= minFoldAngle) return null;
+        var I = System.Globalization.CultureInfo.InvariantCulture;
+        static double Deg(double rad) => rad * 180 / Math.PI;
+        string why = string.Format(I, "the Yoshimura vault folds its shallowest creases only {0:0.##} deg at {1} rings x {2} segments (tessellation.cellsX x cellsY), under fitting.bounds.minFoldAngleDeg = {3:0.###} deg, and the fit cannot deepen the folds of this closed form",
+            Deg(shallowest), rings, segments, Deg(minFoldAngle));
+        for (int r = rings + 1; r <= FollowEstimate.MaxSuggestedCells; r++)
+        {
+            var q = p with { CellsX = r, CellsY = segments };
+            double s = ShallowestFold(Generate(target, q).Mesh);
+            if (s >= FoldMargin * minFoldAngle)
+                return new(q, string.Format(I, "{0}; tessellation.cellsX raised to {1} rings (shallowest fold {2:0.##} deg)", why, r, Deg(s)));
+        }
+        for (int n = segments - 1; n >= 3; n--)
+        {
+            var q = p with { CellsX = rings, CellsY = n };
+            double s = ShallowestFold(Generate(target, q).Mesh);
+            if (s >= FoldMargin * minFoldAngle)
+                return new(q, string.Format(I, "{0}; tessellation.cellsY lowered to {1} segments (shallowest fold {2:0.##} deg)", why, n, Deg(s)));
+        }
+        return new(null, string.Format(I, "{0}; no ring count up to {1} nor fewer segments reaches it: lower fitting.bounds.minFoldAngleDeg below {2:0.##} deg or choose another family",
+            why, FollowEstimate.MaxSuggestedCells, Deg(shallowest)));
+    }
+
+    /// <summary>Smallest |fold angle| over the interior mountain and valley creases, radians.</summary>
+    public static double ShallowestFold(Tessel.Core.Model.CreaseMesh mesh)
+    {
+        double least = double.PositiveInfinity;
+        for (int e = 0; e < mesh.EdgeCount; e++)
+            if (mesh.IsInterior(e) && mesh.EdgeRoles[e] is Tessel.Core.Model.CreaseRole.Mountain or Tessel.Core.Model.CreaseRole.Valley)
+                least = Math.Min(least, Math.Abs(mesh.FoldAngle(e)));
+        return least;
+    }
 
     /// <summary>Not judged: the vault is built in closed form on the target's circle.</summary>
     public override double? TurnLimit(Footprint footprint, FamilyParameters p) => null;

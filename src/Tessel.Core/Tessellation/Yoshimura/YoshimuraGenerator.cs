@@ -70,6 +70,15 @@ public static class YoshimuraGenerator
         return new YoshimuraRing(vault.Radius, (vault.Theta1 - vault.Theta0) / segments, vault.Length / rings);
     }
 
+    /// <summary>Triangle bases across the arc and ring steps along the axis that <see cref="Generate"/> uses.</summary>
+    public static (int Segments, int Rings) Counts(ITargetSurface target, YoshimuraParameters p)
+    {
+        var vault = Vault(target);
+        if (vault.Problem is { } problem) throw new ArgumentException(problem, nameof(target));
+        return (CellCounts.Resolve(p.Segments, p.CellSize, vault.Radius * (vault.Theta1 - vault.Theta0), nameof(p.Segments)),
+            CellCounts.Resolve(p.Rings, p.CellSize, vault.Length, nameof(p.Rings)));
+    }
+
     /// <summary>Why this family cannot be built on the target, or null when it can: the advice asks this
     /// so that it never calls the family suited where the generator refuses.</summary>
     public static string? Problem(ITargetSurface target) => Vault(target).Problem;

@@ -94,4 +94,47 @@ public class YoshimuraTests
         Assert.InRange(r.Shape.Rms, 0, 0.5 * 0.005 * 0.26);
         Assert.InRange(r.Shape.Rms, 1e-9, 1);
     }
+
+    /// <summary>A ferry shelter's vault (invented): R 4.2 m over a 5 m long, 3.6 m wide footprint.</summary>
+    private static readonly CylinderSurface Shelter = new(Footprint.Rectangle(5, 3.6), radius: 4.2, rise: 1.2);
+
+    /// <summary>Ring-crease fold angle of the closed form, derived here from <see cref="YoshimuraRing"/>: the
+    /// two triangles on a ring crease are mirror images across the ring's plane, their apexes t along the
+    /// axis and R (1 - cos(phi / 2)) outward of the crease's midpoint, so rho = 2 atan(R (1 - cos(phi/2)) / t).</summary>
+    private static double RingFold(double radius, double phi, double pitch) => 2 * Math.Atan(radius * (1 - Math.Cos(phi / 2)) / pitch);
+
+    [Fact]
+    public void ShallowestFoldOfTheClosedFormIsTheRingCrease()
+    {
+        var p = new YoshimuraParameters(Segments: 18, Rings: 18);
+        var ring = YoshimuraGenerator.RingFor(Shelter, p);
+        double shallowest = YoshimuraFamily.ShallowestFold(YoshimuraGenerator.Generate(Shelter, p).Mesh);
+        Assert.Equal(RingFold(4.2, ring.ChordAngle, 5.0 / 18), shallowest, 12);
+        Assert.Equal(0.5244, shallowest * 180 / Math.PI, 3); // worked by hand from the formula above
+    }
+
+    [Fact]
+    public void TooShallowFoldsRaiseTheRingCountToTheFirstThatHoldsTheMinimum()
+    {
+        var family = new YoshimuraFamily();
+        double min = 1 * Math.PI / 180;
+        var asked = new FamilyParameters(CellsX: 18, CellsY: 18);
+        var repair = family.DeepenShallowFolds(Shelter, asked, min);
+
+        Assert.NotNull(repair);
+        Assert.NotNull(repair.Parameters);
+        // The first ring count whose ring creases fold FoldMargin x 1 deg, from the closed form:
+        // t <= R (1 - cos(phi/2)) / tan(1.1 deg / 2), and t = 5 m / rings.
+        double phi = YoshimuraGenerator.RingFor(Shelter, new YoshimuraParameters(18, 18)).ChordAngle;
+        int expected = (int)Math.Ceiling(5 / (4.2 * (1 - Math.Cos(phi / 2)) / Math.Tan(YoshimuraFamily.FoldMargin * min / 2)));
+        Assert.Equal(38, expected);
+        Assert.Equal(expected, repair.Parameters.CellsX);
+        Assert.Equal(18, repair.Parameters.CellsY);
+        Assert.Contains("tessellation.cellsX raised to 38 rings", repair.Message);
+        Assert.Contains("fitting.bounds.minFoldAngleDeg = 1 deg", repair.Message);
+        Assert.Contains("0.52 deg", repair.Message);
+        // Folds that already hold the minimum need no repair.
+        Assert.Null(family.DeepenShallowFolds(Shelter, repair.Parameters, min));
+        Assert.Null(family.DeepenShallowFolds(Shelter, asked, 0.5 * Math.PI / 180));
+    }
 }
