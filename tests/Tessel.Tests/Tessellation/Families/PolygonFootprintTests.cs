@@ -127,21 +127,31 @@ public class PolygonFootprintTests(ITestOutputHelper output)
     }
 
     [Theory]
-    [InlineData("miura", "hexagon", 0.05)]
+    [InlineData("miura", "hexagon", 0.01)]
     [InlineData("free-triangulated", "hexagon", 0.08)]
     [InlineData("free-triangulated", "ring", 0.06)]
     public void CutPatternsFitToTheConstraints(string family, string targetName, double rmsBand)
     {
         var target = Named(targetName);
-        var g = TessellationFamilies.Generate(family, target, new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.1));
-        var r = MultiStartFitter.Fit(g, target, new FitSettings { Seed = 1 }, EpsilonConstraintFitter.DefaultSolver);
+        var p = new FamilyParameters(CellsX: 6, CellsY: 6, FoldDepth: 0.1);
+        var g = TessellationFamilies.Generate(family, target, p);
+        var r = ContinuationFitter.Fit(g, target, new FitSettings { Seed = 1 }, s => TessellationFamilies.Generate(family, s, p with { BuildableStart = true }), EpsilonConstraintFitter.DefaultSolver);
         output.WriteLine($"{targetName}/{family}: {r.StopReason}, {r.History.Count} steps, residual {r.Residuals.MaxConstraintViolation:E2}, RMS {r.Shape.Rms * 1e3:F2} mm");
         Assert.InRange(r.Residuals.MaxConstraintViolation, 0, 1e-9);
         Assert.InRange(r.Residuals.MaxKawasaki, 0, 1e-9);
+        // Every quad facet is a simple convex quadrilateral: its corner angles sum to 360 deg (the angle sum
+        // of a convex polygon, Euclid I.32); a crossed (bow-tie) or reflex facet reads less.
+        foreach (var q in r.Mesh.Faces.Where(q => q.Length == 4))
+        {
+            double sum = Enumerable.Range(0, 4).Sum(i => Vec3.Angle(r.Mesh.Vertex(q[(i + 3) % 4]) - r.Mesh.Vertex(q[i]), r.Mesh.Vertex(q[(i + 1) % 4]) - r.Mesh.Vertex(q[i])));
+            Assert.Equal(2 * Math.PI, sum, 6);
+        }
         // Bands from the measured shape error with 6 x 6 cells over the bounding box (cells 0.7-0.94 m):
-        // hexagon Miura 36 mm, hexagon net 57 mm, ring net 41 mm (11 vertices are left on the 2.2 m wide
-        // ring; the same dome as a formula over the same outline also gives 41 mm). Before the mesh's
-        // distance continued along its tangent plane past its border, the ring net stopped at 236 mm.
+        // hexagon Miura 2.7 mm (by the continuation: the fit from the drape ended with two corner facets
+        // crossed, which the corner-order rows now refuse; before them it was called buildable at 36 mm),
+        // hexagon net 57 mm, ring net 41 mm (11 vertices are left on the 2.2 m wide ring; the same dome as a
+        // formula over the same outline also gives 41 mm). Before the mesh's distance continued along its
+        // tangent plane past its border, the ring net stopped at 236 mm.
         Assert.InRange(r.Shape.Rms, 0, rmsBand);
     }
 
