@@ -128,7 +128,8 @@ internal sealed class FitRun
         // phase 1b pure Gauss-Newton on the violation (lands on it). On large sheets the pulled point can
         // sit away from the constraints along slow, sheet-wide modes: 1b then needs tens of steps (measured:
         // 28 at 40 x 40 cells, 2-5 up to 24 x 24) and stops as soon as it lands.
-        Minimise(Feasibility, Math.Max(1, Math.Min(PulledFeasibilitySteps, budget - ProjectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: PulledFeasibilityStall);
+        if (_s.PullTowardTargetFirst)
+            Minimise(Feasibility, Math.Max(1, Math.Min(PulledFeasibilitySteps, budget - ProjectionReserve)), () => MaxViolation() <= tolerance, out _, stallDecrease: PulledFeasibilityStall);
         Minimise(Projection, Math.Max(1, Math.Min(FeasibilityProjectionSteps, budget - ProjectionReserve - _solves)), () => MaxViolation() <= tolerance, out _, initialDamping: FeasibilityProjectionDamping);
 
         // Phase 2: epsilon-constraint problem by augmented Lagrangian rounds.
@@ -363,7 +364,15 @@ internal sealed class FitRun
         return true;
     }
 
-    private void Evaluate(double[] x) => _rows.Evaluate(x, _value, _grad);
+    /// <summary>Values of every row at <paramref name="x"/>, gradients of all but the bounds; <see cref="Merit"/>
+    /// adds the gradients of the bounds it weights (unweighted rows' gradients are never read).</summary>
+    private void Evaluate(double[] x)
+    {
+        _rows.EvaluateWithoutBoundGradients(x, _value, _grad);
+        _evaluatedAt = x;
+    }
+
+    private double[] _evaluatedAt = [];
 
     /// <summary>Fills weights and residuals for the phase from the current values and returns
     /// half the sum of squared residuals.</summary>
@@ -397,6 +406,7 @@ internal sealed class FitRun
                 w = excess != 0 || _rows.Lo[r] == _rows.Hi[r] ? 1 : 0;
             }
             _weight[r] = w; _residual[r] = w == 0 ? 0 : res;
+            if (w != 0 && _rows.IsBound(r)) _rows.FillGradient(r, _evaluatedAt, _grad);
             sum += res * res;
         }
         return 0.5 * sum;

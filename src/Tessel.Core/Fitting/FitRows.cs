@@ -137,6 +137,44 @@ internal sealed class FitRows
         }
     }
 
+    /// <summary>Whether row <paramref name="r"/> is a bound: its gradient is used only while it binds.</summary>
+    public bool IsBound(int r) => Kind[r] is ResidualKind.SectorAngleBound or ResidualKind.EdgeLengthBound
+        or ResidualKind.FoldAngleBound or ResidualKind.FacetCornerOrder;
+
+    /// <summary>As <see cref="Evaluate"/>, but the bound rows get their values only: most of them do not bind,
+    /// and the fitter asks for the gradients of those that do (<see cref="FillGradient"/>) once it has
+    /// weighted the rows. The values are the same numbers <see cref="Evaluate"/> gives.</summary>
+    public void EvaluateWithoutBoundGradients(double[] xyz, double[] value, double[] grad)
+    {
+        for (int r = 0; r < Kind.Length; r++)
+        {
+            int s0 = Start[r], nv = Start[r + 1] - s0;
+            value[r] = IsBound(r) ? BoundValue(r, xyz) : EvaluateRow(r, xyz, grad.AsSpan(3 * s0, 3 * nv));
+        }
+    }
+
+    /// <summary>Fills the gradient of row <paramref name="r"/> at <paramref name="xyz"/> into its place in
+    /// <paramref name="grad"/>.</summary>
+    public void FillGradient(int r, double[] xyz, double[] grad)
+    {
+        int s0 = Start[r], nv = Start[r + 1] - s0;
+        EvaluateRow(r, xyz, grad.AsSpan(3 * s0, 3 * nv));
+    }
+
+    /// <summary>The value of bound row <paramref name="r"/>, computed as <see cref="EvaluateRow"/> computes it.</summary>
+    private double BoundValue(int r, double[] xyz)
+    {
+        var vs = Vertices.AsSpan(Start[r], Start[r + 1] - Start[r]);
+        switch (Kind[r])
+        {
+            case ResidualKind.SectorAngleBound: return CornerAngle.Value(xyz, vs[0], vs[1], vs[2]);
+            case ResidualKind.EdgeLengthBound: return EdgeLength.Value(xyz, vs[0], vs[1]) * (1 / Scale);
+            case ResidualKind.FoldAngleBound: return FoldAngle.Value(xyz, vs[0], vs[1], vs[2], vs[3]);
+            case ResidualKind.FacetCornerOrder: return FacetCornerOrder.Value(xyz, vs[0], vs[1], vs[2], vs[3], _cornerScale[_aux[r]]);
+            default: throw new InvalidOperationException($"row kind {Kind[r]} is not a bound");
+        }
+    }
+
     /// <summary>Value of row <paramref name="r"/> at <paramref name="xyz"/>; its gradient (3 per row vertex)
     /// into <paramref name="gr"/>.</summary>
     public double EvaluateRow(int r, double[] xyz, Span<double> gr)

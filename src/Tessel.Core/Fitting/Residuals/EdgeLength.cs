@@ -15,4 +15,7 @@ public static class EdgeLength
         u.Write(grad, 1);
         return len;
     }
+
+    /// <summary>|b - a| alone (the same number <see cref="Evaluate"/> returns).</summary>
+    public static double Value(ReadOnlySpan<double> xyz, int a, int b) => (Vec3.Read(xyz, b) - Vec3.Read(xyz, a)).Length;
 }

@@ -28,6 +28,14 @@ public static class FacetCornerOrder
         return Vec3.Dot(na, nc) / scale;
     }
 
+    /// <summary>The value alone (the same number <see cref="Evaluate"/> returns).</summary>
+    public static double Value(ReadOnlySpan<double> xyz, int a, int b, int c, int d, double scale)
+    {
+        var xa = Vec3.Read(xyz, a); var xb = Vec3.Read(xyz, b);
+        var xc = Vec3.Read(xyz, c); var xd = Vec3.Read(xyz, d);
+        return Vec3.Dot(Vec3.Cross(xa - xd, xb - xa), Vec3.Cross(xc - xb, xd - xc)) / scale;
+    }
+
     /// <summary>The divisor that makes the value dimensionless: the four edge lengths at the corners' of
     /// the facet a, b, c, d in <paramref name="xyz"/> (the drape), multiplied.</summary>
     public static double Scale(ReadOnlySpan<double> xyz, int a, int b, int c, int d)

@@ -33,4 +33,15 @@ public static class FoldAngle
         gr.Write(grad, 3);
         return angle;
     }
+
+    /// <summary>The angle alone (the same number <see cref="Evaluate"/> returns).</summary>
+    public static double Value(ReadOnlySpan<double> xyz, int a, int b, int l, int r)
+    {
+        var xa = Vec3.Read(xyz, a); var xb = Vec3.Read(xyz, b);
+        var e = xb - xa;
+        double elen = e.Length;
+        var nl = Vec3.Cross(e, Vec3.Read(xyz, l) - xa);
+        var nr = Vec3.Cross(Vec3.Read(xyz, r) - xa, e);
+        return Math.Atan2(Vec3.Dot(Vec3.Cross(nl, nr), e) / elen, Vec3.Dot(nl, nr));
+    }
 }
