@@ -108,7 +108,7 @@ public static class RobustnessBenchmark
         var job = Load(target, family, cells, seed, assets);
         var t = TargetStage.Run(job, Tessel.Output.IO.HeightMapImage.Decode, ProgressReporter.Silent);
         var tess = TessellationStage.Run(job, t.Target, ProgressReporter.Silent);
-        var fit = FitStage.Run(job, tess.Pattern!, t.Target, Verbose ? new ProgressReporter(Console.Out) : ProgressReporter.Silent, tess.DrapeOn).Fit;
+        var fit = FitStage.Run(job, tess.Pattern!, t.Target, Verbose ? new ProgressReporter(Console.Out) : ProgressReporter.Silent, tess.DrapeOn, tess.Coarser).Fit;
         if (Verbose)
             foreach (var h in fit.History)
                 Console.WriteLine($"  {h.Index,4} {h.Phase,-20} obj {h.Objective:E3} rms {h.ShapeRms:E3} P {h.MaxPlanarity:E2} K {h.MaxKawasaki:E2} D {h.MaxDevelopabilityExcess:E2} B {h.MaxBoundViolation:E2} {(h.Accepted ? "" : "rej")}");

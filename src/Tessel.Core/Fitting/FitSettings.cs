@@ -36,6 +36,11 @@ public sealed record FitSettings
     /// <summary>Standard deviation of the start perturbation along the target normal, as a fraction of
     /// the mean edge length (0 = start from the plain drape).</summary>
     public double StartPerturbation { get; init; } = 0.02;
+    /// <summary>Phase 1 starts with a few steps on the constraints plus a faint pull toward the target (a
+    /// well-conditioned approach to the constraint set); false goes straight to the projection, for a
+    /// start whose sheet-wide shape already suits the constraints (a coarse start) and which the pull
+    /// would take back toward the target.</summary>
+    public bool PullTowardTargetFirst { get; init; } = true;
     /// <summary>Initial augmented-Lagrangian penalty (dimensionless: constraints are in radians).</summary>
     public double InitialPenalty { get; init; } = 1e6;
 

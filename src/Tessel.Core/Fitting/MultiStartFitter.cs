@@ -14,8 +14,9 @@ namespace Tessel.Core.Fitting;
 public static class MultiStartFitter
 {
     /// <param name="solverFactory">Makes one SPD solver per start; default <see cref="EpsilonConstraintFitter.DefaultSolver"/>.</param>
+    /// <param name="from">Positions (#V*3) the starts perturb instead of the drape (a coarse start), or null.</param>
     public static FitResult Fit(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
-        Func<ISpdSolver>? solverFactory = null)
+        Func<ISpdSolver>? solverFactory = null, double[]? from = null)
     {
         settings = settings.For(pattern);
         int starts = Math.Max(1, settings.Starts);
@@ -23,7 +24,7 @@ public static class MultiStartFitter
         var results = new FitResult[starts];
         Parallel.For(0, starts, k =>
         {
-            var start = PerturbedStart(pattern.Mesh, target, rows.Scale * settings.StartPerturbation, settings.Seed, k);
+            var start = PerturbedStart(pattern.Mesh, target, rows.Scale * settings.StartPerturbation, settings.Seed, k, from);
             results[k] = EpsilonConstraintFitter.FitWithRows(pattern, rows, settings,
                 solverFactory?.Invoke() ?? EpsilonConstraintFitter.DefaultSolver(), start);
         });
@@ -39,9 +40,9 @@ public static class MultiStartFitter
 
     /// <summary>#V*3 start positions: interior vertices moved along the target normal by a normal
     /// deviate of standard deviation <paramref name="sigma"/> metres (Box-Muller on a seeded generator).</summary>
-    public static double[] PerturbedStart(CreaseMesh mesh, ITargetSurface target, double sigma, int seed, int startIndex)
+    public static double[] PerturbedStart(CreaseMesh mesh, ITargetSurface target, double sigma, int seed, int startIndex, double[]? from = null)
     {
-        var pos = (double[])mesh.Positions.Clone();
+        var pos = (double[])(from ?? mesh.Positions).Clone();
         if (sigma <= 0) return pos;
         var random = new Random(unchecked(seed * 1_000_003 + startIndex * 7919 + 17));
         var boundary = mesh.BoundaryVertices();

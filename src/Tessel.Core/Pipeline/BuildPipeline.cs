@@ -64,7 +64,7 @@ public static class BuildPipeline
         // An unknown material is bad input: refuse it before the long fit, not after.
         double strainLimit = SheetStage.SettingsFor(job).Material.StrainLimit;
 
-        var fit = FitStage.Run(job, pattern, target.Target, progress, tessellation.DrapeOn);
+        var fit = FitStage.Run(job, pattern, target.Target, progress, tessellation.DrapeOn, tessellation.Coarser);
         FlatPattern? unfolded = null;
         if (job.Fabrication.AutoScale)
         {

@@ -35,8 +35,10 @@ public static class FitStage
 
     /// <param name="drapeOn">Drapes the pattern on another surface, for the fit's continuation when the
     /// fit from the drape is not buildable (<see cref="TessellationStageResult.DrapeOn"/>); null: no continuation.</param>
+    /// <param name="coarser">The same sheet with fewer cells, for the coarse start of large sheets
+    /// (<see cref="TessellationStageResult.Coarser"/>); null: the fit starts from the drape.</param>
     public static FitStageResult Run(Job job, GeneratedPattern pattern, ITargetSurface target, ProgressReporter progress,
-        Func<ITargetSurface, GeneratedPattern>? drapeOn = null)
+        Func<ITargetSurface, GeneratedPattern>? drapeOn = null, CoarserSheets? coarser = null)
     {
         var settings = SettingsFor(job);
         progress.Stage("fit", $"{settings.Starts} start(s), epsilon {settings.EpsilonDeg:0.###} deg, {pattern.Mesh.VertexCount * 3} unknowns");
@@ -46,7 +48,7 @@ public static class FitStage
         FitResult fit;
         try
         {
-            fit = ContinuationFitter.Fit(pattern, target, progress.Observe(settings), drapeOn, EpsilonConstraintFitter.DefaultSolver, progress.Step);
+            fit = ContinuationFitter.Fit(pattern, target, progress.Observe(settings), drapeOn, EpsilonConstraintFitter.DefaultSolver, progress.Step, coarser);
         }
         catch (Exception e) when (Breakdown(e) is { } cause)
         {

@@ -21,6 +21,9 @@ public sealed record TessellationStageResult(GeneratedPattern Pattern, FamilyAdv
     /// the job's minimum (<see cref="TessellationFamily.DeepenShallowFolds"/>), or why it could not; null
     /// when none was needed.</summary>
     public ShallowFoldRepair? FoldRepair { get; init; }
+    /// <summary>The same sheet with fewer cells, for the fit's coarse start on large sheets; null where the
+    /// family has none.</summary>
+    public CoarserSheets? Coarser { get; init; }
 }
 
 /// <summary>Second stage: job tessellation section + target -> draped crease pattern.</summary>
@@ -59,7 +62,7 @@ public static class TessellationStage
             if (pieces > 1)
                 throw new JobError(spec.CellsX is null && spec.CellSize is not null ? "tessellation.cellSize" : "tessellation.cellsX",
                     $"the {spec.Family} pattern falls into {pieces} pieces on this footprint (facets meet only at corners where the footprint narrows); use smaller cells (more cellsX and cellsY) or a wider footprint");
-            return new TessellationStageResult(pattern, advice) { Follow = follow, FoldRepair = repair, DrapeOn = surface => family.Generate(surface, p with { BuildableStart = true }) };
+            return new TessellationStageResult(pattern, advice) { Follow = follow, FoldRepair = repair, Coarser = family.Coarser(target, p), DrapeOn = surface => family.Generate(surface, p with { BuildableStart = true }) };
         }
         catch (ArgumentException e)
         {

@@ -38,6 +38,12 @@ public abstract class TessellationFamily : FamilyInfo
     /// the parameters make no pattern (the generator then says so).</summary>
     public virtual ShallowFoldRepair? DeepenShallowFolds(ITargetSurface target, FamilyParameters p, double minFoldAngle) => null;
 
+    /// <summary>The same sheet with other cell counts, for the fit's coarse start on large sheets
+    /// (<see cref="Fitting.CoarseStart"/>): the job's counts as generated and a generator for other counts,
+    /// the fold depth scaled with the cells so that the cells keep their shape; null where the family has
+    /// none (its fit starts from the drape at every size).</summary>
+    public virtual CoarserSheets? Coarser(ITargetSurface target, FamilyParameters p) => null;
+
     /// <summary>False for a family with one vertex layer, where the fold depth means nothing.</summary>
     public virtual bool HasFoldDepth => true;
 

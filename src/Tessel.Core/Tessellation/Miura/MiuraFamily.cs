@@ -18,6 +18,17 @@ public sealed class MiuraFamily : TessellationFamily
         return new(Name, true, $"The target is saddle-like or single-curved ({k}): Miura sheets bend this way naturally.", null);
     }
 
+    /// <summary>Half-size sheets settle the sheet-wide mode that stalls the fit of large Miura sheets
+    /// (measured on the benchmark saddle, see <see cref="Fitting.CoarseStart"/>).</summary>
+    public override CoarserSheets? Coarser(ITargetSurface target, FamilyParameters p)
+    {
+        int cx, cy;
+        try { (_, cx, cy) = MiuraGenerator.ResolveCell(target.Footprint, ParametersOf(p)); }
+        catch (ArgumentException) { return null; }
+        return new CoarserSheets(cx, cy, (nx, ny) => Generate(target,
+            p with { CellsX = nx, CellsY = ny, CellSize = null, FoldDepth = p.FoldDepth * Math.Sqrt((double)cx / nx * cy / ny) }));
+    }
+
     /// <summary>The facet tilt theta of the Miura cell (Schenk and Guest 2013; sin theta = H / (a sin gamma)).</summary>
     public override double? TurnLimit(Footprint footprint, FamilyParameters p) => MiuraTurnLimit(footprint, p);
 
