@@ -18,12 +18,16 @@ public static class DeviationPalette
         (150, 44, 36),
     ];
 
-    /// <summary>Colour of a deviation given the colour bar limits (same unit as the deviation).</summary>
+    /// <summary>The scale never runs to less than this (metres at full scale): a model that lies on its target
+    /// (a closed-form vault) has deviations of round-off size, which a scale fitted to them would colour
+    /// as strongly as centimetres. A micrometre is far below anything a model shows and far above round-off.</summary>
+    public const double SmallestSpanM = 1e-6;
+
+    /// <summary>Colour of a deviation given the colour bar limits, metres at full scale.</summary>
     public static SKColor Colour(double deviation, double min, double max)
     {
-        double span = Math.Max(Math.Abs(min), Math.Abs(max));
-        double t = span > 0 ? Math.Clamp(deviation / span, -1, 1) : 0;
-        return AtSigned(t);
+        double span = Math.Max(Math.Max(Math.Abs(min), Math.Abs(max)), SmallestSpanM);
+        return AtSigned(Math.Clamp(deviation / span, -1, 1));
     }
 
     /// <summary>Colour at t in [-1, 1]: -1 most below, 0 on target, 1 most above.</summary>

@@ -110,8 +110,8 @@ internal static class FoldingViewerScript
   }
 
   function deviationColour(d) {
-    var span = Math.max(Math.abs(data.barMin), Math.abs(data.barMax));
-    var t = span > 0 ? Math.max(-1, Math.min(1, d / span)) : 0;
+    var span = Math.max(Math.abs(data.barMin), Math.abs(data.barMax), data.smallestSpan);
+    var t = Math.max(-1, Math.min(1, d / span));
     var u = (t + 1) * 2, k = Math.min(3, Math.floor(u)), f = u - k;
     return [0, 1, 2].map(function (c) { return stops[k][c] + (stops[k + 1][c] - stops[k][c]) * f; });
   }

@@ -11,7 +11,7 @@ namespace Tessel.Output.Report;
 public static class ViewerData
 {
     /// <summary>JSON with keys folded (#V*3 m), faces, edges (triples v0, v1, role index), deviation
-    /// (#V m), barMin/barMax (m), scale, keyframes [{p, x}], palette (5 CSS stops) and roleColours.</summary>
+    /// (#V m), barMin/barMax (m), smallestSpan (m, the colour scale's least half-range), scale, keyframes [{p, x}], palette (5 CSS stops) and roleColours.</summary>
     public static string Json(ReportModel model, double barMinM, double barMaxM)
     {
         using var buffer = new MemoryStream();
@@ -40,6 +40,7 @@ public static class ViewerData
             Numbers(w, "deviation", model.VertexDeviationM, 7);
             w.WriteNumber("barMin", barMinM);
             w.WriteNumber("barMax", barMaxM);
+            w.WriteNumber("smallestSpan", DeviationPalette.SmallestSpanM);
             w.WriteStartArray("keyframes");
             foreach (var k in model.Keyframes.OrderBy(k => k.Progress))
             {

@@ -75,6 +75,17 @@ public class PreviewTests
     }
 
     [Fact]
+    public void RoundOffDeviationsReadAsOnTarget()
+    {
+        // A model on its target (a closed-form vault: deviations of 1e-15 m) is coloured neutral, not
+        // stretched to the ends of the scale; a millimetre still gets the full colour.
+        var neutral = new SKColor(238, 234, 222);
+        Assert.Equal(neutral, DeviationPalette.Colour(2e-15, -1e-15, 2e-15));
+        Assert.Equal(neutral, DeviationPalette.Colour(-1e-15, -1e-15, 2e-15));
+        Assert.Equal(new SKColor(150, 44, 36), DeviationPalette.Colour(1e-3, -1e-3, 1e-3));
+    }
+
+    [Fact]
     public void ParetoPlotPutsKnownPointsAtTheExpectedPixels()
     {
         ParetoPoint[] pts = [ReportDemoData.Front(0, 0.021), ReportDemoData.Front(1, 0.008), ReportDemoData.Front(2, 0.005), ReportDemoData.Front(4, 0.004)];
