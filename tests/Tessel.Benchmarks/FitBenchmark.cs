@@ -1,11 +1,9 @@
 using System.Diagnostics;
 using System.Globalization;
 using Tessel.Core.Fitting;
-using Tessel.Core.Geometry;
 using Tessel.Core.LinearAlgebra;
 using Tessel.Core.Targets;
 using Tessel.Core.Tessellation;
-using Tessel.Core.Tessellation.Miura;
 
 namespace Tessel.Benchmarks;
 
@@ -37,11 +35,9 @@ public static class FitBenchmark
             var sw = Stopwatch.StartNew();
             // Large sheets start from a fit with half the cells, as in a build (Fitting/CoarseStart); its time
             // and steps are counted in the row.
-            var coarser = new CoarserSheets(n, n, (nx, ny) => MiuraGenerator.Generate(target,
-                new MiuraParameters(CellsX: nx, CellsY: ny, SectorAngleDeg: 60, FoldDepth: 0.03 * Math.Sqrt((double)n / nx * n / ny))));
+            var coarser = TessellationFamilies.Find("miura")!.Coarser(target, SaddleParameters(n));
             var coarse = CoarseStart.For(pattern, target, settings, coarser, () => MakeSolver(solverName), verbose ? Console.WriteLine : null);
-            var start = coarse?.Positions;
-            var r = EpsilonConstraintFitter.Fit(pattern, target, start is null ? settings : settings with { PullTowardTargetFirst = false }, MakeSolver(solverName), start);
+            var r = EpsilonConstraintFitter.Fit(pattern, target, CoarseStart.SettingsFrom(settings, coarse), MakeSolver(solverName), coarse?.Positions);
             sw.Stop();
             if (verbose)
                 foreach (var h in r.History)
@@ -95,7 +91,8 @@ public static class FitBenchmark
     {
         double size = 0.1 * cells;
         var target = new HyperbolicParaboloidSurface(Footprint.Rectangle(size, size), c: 2.5 * size);
-        var p = new MiuraParameters(CellsX: cells, CellsY: cells, SectorAngleDeg: 60, FoldDepth: 0.03);
-        return (MiuraGenerator.Generate(target, p), target);
+        return (TessellationFamilies.Generate("miura", target, SaddleParameters(cells)), target);
     }
+
+    private static FamilyParameters SaddleParameters(int cells) => new(CellsX: cells, CellsY: cells, SectorAngleDeg: 60, FoldDepth: 0.03);
 }

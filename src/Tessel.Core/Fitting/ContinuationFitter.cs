@@ -53,11 +53,7 @@ public static class ContinuationFitter
         if (loose.StartPerturbation > 0 && EpsilonConstraintFitter.Measure(pattern, target, loose.For(pattern), pattern.Mesh.Positions).Buildable)
             loose = loose with { StartPerturbation = 0, Starts = 1 };
         var coarseStart = CoarseStart.For(pattern, target, loose.For(pattern), coarser, solverFactory ?? EpsilonConstraintFitter.DefaultSolver, report);
-        // A coarse start already has the sheet-wide shape the constraints need; the pull toward the target
-        // would take it back (measured at 80 x 80: the pull brought the start from 5.5 to 0.8 mm RMS and
-        // the projection then crawled again; without it the projection lands in 34 steps at 64 x 64).
-        var fit = MultiStartFitter.Fit(pattern, target, coarseStart is null ? loose : loose with { PullTowardTargetFirst = false },
-            solverFactory, coarseStart?.Positions);
+        var fit = MultiStartFitter.Fit(pattern, target, CoarseStart.SettingsFrom(loose, coarseStart), solverFactory, coarseStart?.Positions);
         if (!fit.Buildable && drapeOn is not null)
         {
             report?.Invoke($"the fit from the drape is not buildable (largest residual {fit.Residuals.MaxConstraintViolation.ToString("0.##E+0", CultureInfo.InvariantCulture)}); trying a continuation from the best-fit plane");

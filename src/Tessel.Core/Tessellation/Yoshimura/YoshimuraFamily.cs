@@ -32,19 +32,16 @@ public sealed class YoshimuraFamily : TessellationFamily
         static double Deg(double rad) => rad * 180 / Math.PI;
         string why = string.Format(I, "the Yoshimura vault folds its shallowest creases only {0:0.##} deg at {1} rings x {2} segments (tessellation.cellsX x cellsY), under fitting.bounds.minFoldAngleDeg = {3:0.###} deg, and the fit cannot deepen the folds of this closed form",
             Deg(shallowest), rings, segments, Deg(minFoldAngle));
-        for (int r = rings + 1; r <= FollowEstimate.MaxSuggestedCells; r++)
+        // More rings first (the job's arc resolution kept), then fewer segments.
+        var candidates = Enumerable.Range(rings + 1, Math.Max(0, FollowEstimate.MaxSuggestedCells - rings))
+            .Select(r => (Parameters: p with { CellsX = r, CellsY = segments }, Change: $"tessellation.cellsX raised to {r} rings"))
+            .Concat(Enumerable.Range(3, Math.Max(0, segments - 3)).Reverse()
+                .Select(n => (Parameters: p with { CellsX = rings, CellsY = n }, Change: $"tessellation.cellsY lowered to {n} segments")));
+        foreach (var (q, change) in candidates)
         {
-            var q = p with { CellsX = r, CellsY = segments };
             double s = ShallowestFold(Generate(target, q).Mesh);
             if (s >= FoldMargin * minFoldAngle)
-                return new(q, string.Format(I, "{0}; tessellation.cellsX raised to {1} rings (shallowest fold {2:0.##} deg)", why, r, Deg(s)));
-        }
-        for (int n = segments - 1; n >= 3; n--)
-        {
-            var q = p with { CellsX = rings, CellsY = n };
-            double s = ShallowestFold(Generate(target, q).Mesh);
-            if (s >= FoldMargin * minFoldAngle)
-                return new(q, string.Format(I, "{0}; tessellation.cellsY lowered to {1} segments (shallowest fold {2:0.##} deg)", why, n, Deg(s)));
+                return new(q, string.Format(I, "{0}; {1} (shallowest fold {2:0.##} deg)", why, change, Deg(s)));
         }
         return new(null, string.Format(I, "{0}; no ring count up to {1} nor fewer segments reaches it: lower fitting.bounds.minFoldAngleDeg below {2:0.##} deg or choose another family",
             why, FollowEstimate.MaxSuggestedCells, Deg(shallowest)));
