@@ -38,13 +38,17 @@ public static class RobustnessBenchmark
     ];
 
     /// <summary>One build's outcome.</summary>
+    /// <param name="CellsUsed">The cells the build ran with when the tool changed the job's (e.g. "12 x 12"), else empty.</param>
+    /// <param name="BoundsHeld">A buildable result with no crease under the minimum crease and no fold outside the
+    /// fold-angle bounds (the whole pipeline's checks); fit-only runs count the fit's own bound rows.</param>
     private sealed record Outcome(string Job, string Target, string Family, int Cells, int Seed, string Status,
-        bool Finished, double Seconds, double RmsMm, double MaxResidual, int Steps, string Cause);
+        bool Finished, double Seconds, double RmsMm, double MaxResidual, int Steps, string Cause, string CellsUsed = "", bool BoundsHeld = false);
 
     public static void Run(string[] args)
     {
         int[] cells = Ints(Option(args, "cells") ?? "6,12,20");
         int[] seeds = Ints(Option(args, "seeds") ?? "1,2,3");
+        Scale = Option(args, "scale") ?? "50";
         var onlyTargets = Option(args, "targets")?.Split(',');
         var onlyFamilies = Option(args, "families")?.Split(',');
         bool verbose = args.Contains("-v");
@@ -68,7 +72,7 @@ public static class RobustnessBenchmark
                         var o = Build(target, family, n, seed, assets);
                         outcomes.Add(o);
                         Console.WriteLine(FormattableString.Invariant(
-                            $"{o.Job,-40} {o.Status,-12} {(o.Finished ? "finished" : "        ")} {o.Seconds,7:F1} s  rms {o.RmsMm,8:F2} mm  resid {o.MaxResidual,8:E1}  steps {o.Steps,4}  {o.Cause}"));
+                            $"{o.Job,-40} {o.Status,-12} {(o.Finished ? "finished" : "        ")} {o.Seconds,7:F1} s  rms {o.RmsMm,8:F2} mm  resid {o.MaxResidual,8:E1}  steps {o.Steps,4}  {(o.BoundsHeld ? "bounds held" : "BOUNDS MISSED"),-13} {(o.CellsUsed.Length > 0 ? "ran " + o.CellsUsed : ""),-14} {o.Cause}"));
                     }
             }
         }
@@ -96,11 +100,13 @@ public static class RobustnessBenchmark
         string json = "{\"name\":\"" + $"{target.Name}-{family}-{cells}-s{seed}" + "\",\"seed\":" + seed
             + ",\"target\":" + target.TargetJson
             + ",\"tessellation\":{\"family\":\"" + family + "\",\"cellsX\":" + cells + ",\"cellsY\":" + cells + "}"
-            + ",\"fabrication\":{\"scale\":50,\"sheet\":{\"name\":\"A1\"}}}";
+            + ",\"fabrication\":{\"scale\":" + Scale + ",\"sheet\":{\"name\":\"A1\"}}}";
         return JobLoader.Parse(json, "robustness corpus", assets);
     }
 
     private static bool FitOnly, Verbose;
+    /// <summary>n of the corpus's model scale 1:n (scale=N; 50 unless given).</summary>
+    private static string Scale = "50";
 
     /// <summary>Stages up to the fit only (fast turnaround while working on the fit); -v prints its steps.</summary>
     private static Outcome FitOnlyBuild(TargetCase target, string family, int cells, int seed, string assets, string name, Stopwatch clock)
@@ -114,7 +120,8 @@ public static class RobustnessBenchmark
                 Console.WriteLine($"  {h.Index,4} {h.Phase,-20} obj {h.Objective:E3} rms {h.ShapeRms:E3} P {h.MaxPlanarity:E2} K {h.MaxKawasaki:E2} D {h.MaxDevelopabilityExcess:E2} B {h.MaxBoundViolation:E2} {(h.Accepted ? "" : "rej")}");
         bool buildable = fit.Residuals.MaxConstraintViolation <= job.Fitting.Tolerance;
         return new Outcome(name, target.Name, family, cells, seed, buildable ? "buildable" : "unbuildable", fit.Converged, clock.Elapsed.TotalSeconds,
-            fit.Shape.Rms * 1e3, fit.Residuals.MaxConstraintViolation, fit.History.Count, fit.StopReason + (fit.Adjustments.Count > 0 ? "; " + string.Join("; ", fit.Adjustments) : ""));
+            fit.Shape.Rms * 1e3, fit.Residuals.MaxConstraintViolation, fit.History.Count, fit.StopReason + (fit.Adjustments.Count > 0 ? "; " + string.Join("; ", fit.Adjustments) : ""),
+            tess.LengthRepair is { CellsX: int ux, CellsY: int uy } ? $"{ux} x {uy}" : "", buildable);
     }
 
     private static Outcome Build(TargetCase target, string family, int cells, int seed, string assets)
@@ -130,8 +137,11 @@ public static class RobustnessBenchmark
             BuildRunner.Map(result, ProgressReporter.Silent);
             var fit = result.Fit.Fit;
             string status = result.Problem is null ? "buildable" : "unbuildable";
+            var used = result.Job.Tessellation;
+            bool held = result.Problem is null && result.Checks is { ShortCreaseCount: 0, FoldBounds.Violations: 0 };
             return new Outcome(name, target.Name, family, cells, seed, status, fit.Converged, clock.Elapsed.TotalSeconds,
-                fit.Shape.Rms * 1e3, MaxResidual(result), fit.History.Count, result.Problem ?? "");
+                fit.Shape.Rms * 1e3, MaxResidual(result), fit.History.Count, result.Problem ?? "",
+                used.CellsX != cells || used.CellsY != cells ? $"{used.CellsX} x {used.CellsY}" : "", held);
         }
         catch (JobError e) { return new Outcome(name, target.Name, family, cells, seed, "refused", false, clock.Elapsed.TotalSeconds, double.NaN, double.NaN, 0, e.Message); }
         catch (FitBreakdownError e) { return new Outcome(name, target.Name, family, cells, seed, "breakdown", false, clock.Elapsed.TotalSeconds, double.NaN, double.NaN, 0, e.Message); }
@@ -143,7 +153,7 @@ public static class RobustnessBenchmark
     private static double MaxResidual(PipelineResult result)
     {
         var (fit, bounds) = (result.Fit.Fit, result.Job.Fitting.Bounds);
-        var folds = FoldRoles.Bounds(fit.Mesh, Math.Max(bounds.MinFoldAngleDeg, 0), bounds.MaxFoldAngleDeg);
+        var folds = FoldRoles.Bounds(fit.Mesh, Math.Max(bounds.MinFoldAngleDeg, 0), bounds.MaxFoldAngleDeg, result.Job.Fitting.Tolerance);
         double m = 0;
         foreach (double d in new[] { fit.Residuals.MaxDevelopabilityExcess, fit.Residuals.MaxKawasaki, fit.Residuals.MaxPlanarity,
                      Math.Max(fit.Residuals.MaxBoundViolation, folds.MaxViolationRad) })
@@ -155,15 +165,15 @@ public static class RobustnessBenchmark
     {
         if (all.Count == 0) return;
         Console.WriteLine();
-        Console.WriteLine("| group | jobs | buildable | finished | median time (s) | p95 time (s) | median RMS (mm) | internal errors |");
-        Console.WriteLine("|---|---|---|---|---|---|---|---|");
+        Console.WriteLine("| group | jobs | buildable | bounds held | finished | fewer cells | median time (s) | p95 time (s) | median RMS (mm) | internal errors |");
+        Console.WriteLine("|---|---|---|---|---|---|---|---|---|---|");
         void Row(string label, IReadOnlyList<Outcome> os)
         {
             if (os.Count == 0) return;
             var times = os.Select(o => o.Seconds).Order().ToArray();
             var rms = os.Where(o => o.Status == "buildable").Select(o => o.RmsMm).Order().ToArray();
             Console.WriteLine(FormattableString.Invariant(
-                $"| {label} | {os.Count} | {os.Count(o => o.Status == "buildable")} ({100.0 * os.Count(o => o.Status == "buildable") / os.Count:F0} %) | {os.Count(o => o.Finished)} ({100.0 * os.Count(o => o.Finished) / os.Count:F0} %) | {Quantile(times, 0.5):F1} | {Quantile(times, 0.95):F1} | {(rms.Length > 0 ? Quantile(rms, 0.5).ToString("F2", CultureInfo.InvariantCulture) : "-")} | {os.Count(o => o.Status == "INTERNAL")} |"));
+                $"| {label} | {os.Count} | {os.Count(o => o.Status == "buildable")} ({100.0 * os.Count(o => o.Status == "buildable") / os.Count:F0} %) | {os.Count(o => o.BoundsHeld)} | {os.Count(o => o.Finished)} ({100.0 * os.Count(o => o.Finished) / os.Count:F0} %) | {os.Count(o => o.CellsUsed.Length > 0)} | {Quantile(times, 0.5):F1} | {Quantile(times, 0.95):F1} | {(rms.Length > 0 ? Quantile(rms, 0.5).ToString("F2", CultureInfo.InvariantCulture) : "-")} | {os.Count(o => o.Status == "INTERNAL")} |"));
         }
         Row("all", all);
         foreach (var g in all.GroupBy(o => o.Family)) Row(g.Key, g.ToList());

@@ -56,9 +56,10 @@ public static class FoldRoles
     }
 
     /// <summary>Counts the folds (mountain or valley edges) of <paramref name="mesh"/> whose fold angle magnitude
-    /// lies outside [<paramref name="minDeg"/>, <paramref name="maxDeg"/>]. Flat creases are not folds and are
-    /// not counted against the minimum.</summary>
-    public static FoldBoundCount Bounds(CreaseMesh mesh, double minDeg, double maxDeg)
+    /// lies outside [<paramref name="minDeg"/>, <paramref name="maxDeg"/>] by more than
+    /// <paramref name="toleranceRad"/> (the fit's constraint tolerance: the fit holds its bounds to it). Flat
+    /// creases are not folds and are not counted against the minimum. The largest miss is reported whatever its size.</summary>
+    public static FoldBoundCount Bounds(CreaseMesh mesh, double minDeg, double maxDeg, double toleranceRad)
     {
         double min = minDeg * Math.PI / 180, max = maxDeg * Math.PI / 180, worst = 0;
         int folds = 0, flat = 0, below = 0, above = 0;
@@ -70,8 +71,8 @@ public static class FoldRoles
             if (role is not (CreaseRole.Mountain or CreaseRole.Valley)) continue;
             folds++;
             double rho = Math.Abs(mesh.FoldAngle(e));
-            if (rho < min) { below++; worst = Math.Max(worst, min - rho); }
-            else if (rho > max) { above++; worst = Math.Max(worst, rho - max); }
+            if (rho < min) { if (min - rho > toleranceRad) below++; worst = Math.Max(worst, min - rho); }
+            else if (rho > max) { if (rho - max > toleranceRad) above++; worst = Math.Max(worst, rho - max); }
         }
         return new FoldBoundCount(folds, flat, below, above, worst);
     }

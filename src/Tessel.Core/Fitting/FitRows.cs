@@ -82,18 +82,21 @@ internal sealed class FitRows
         {
             int a = mesh.EdgeVertices[2 * e], b = mesh.EdgeVertices[2 * e + 1];
             double len = (mesh.Vertex(b) - mesh.Vertex(a)).Length;
-            double shortest = Math.Max(s.MinEdgeLengthFraction * len, Math.Min(s.MinEdgeLengthM, len));
+            double shortest = Math.Max(s.MinEdgeLengthFraction * len, mesh.IsInterior(e) ? Math.Min(s.MinEdgeLengthM, len) : 0);
             Add(ResidualKind.EdgeLengthBound, shortest / Scale, double.PositiveInfinity, e, a, b);
         }
-        if (cons.HasFlag(FamilyConstraints.FoldSigns))
+        bool signs = cons.HasFlag(FamilyConstraints.FoldSigns), flats = cons.HasFlag(FamilyConstraints.FlatCreases);
+        if (signs || flats)
             for (int e = 0; e < mesh.EdgeCount; e++)
             {
                 var role = mesh.EdgeRoles[e];
-                if (!mesh.IsInterior(e) || (role != CreaseRole.Mountain && role != CreaseRole.Valley)) continue;
+                bool fold = signs && (role is CreaseRole.Mountain or CreaseRole.Valley), flat = flats && role == CreaseRole.Flat;
+                if (!mesh.IsInterior(e) || !(fold || flat)) continue;
                 int a = mesh.EdgeVertices[2 * e], b = mesh.EdgeVertices[2 * e + 1];
                 int l = NextAfter(mesh.Faces[mesh.EdgeFaceLeft[e]], b), r = NextAfter(mesh.Faces[mesh.EdgeFaceRight[e]], a);
-                double min = s.MinFoldAngleDeg * deg, max = s.MaxFoldAngleDeg * deg;
-                if (role == CreaseRole.Mountain) Add(ResidualKind.FoldAngleBound, min, max, e, a, b, l, r);
+                double min = s.MinFoldAngleDeg * deg, max = s.MaxFoldAngleDeg * deg, flatHalfWidth = FitSettings.HeldFlatShare * s.DrawnFlatBelowDeg * deg;
+                if (flat) Add(ResidualKind.FoldAngleBound, -flatHalfWidth, flatHalfWidth, e, a, b, l, r);
+                else if (role == CreaseRole.Mountain) Add(ResidualKind.FoldAngleBound, min, max, e, a, b, l, r);
                 else Add(ResidualKind.FoldAngleBound, -max, -min, e, a, b, l, r);
             }
 

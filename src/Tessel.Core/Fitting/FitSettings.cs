@@ -16,10 +16,16 @@ public sealed record FitSettings
     public double MinFoldAngleDeg { get; init; } = 1;
     /// <summary>Fold angles stay at most this (180 deg = folded shut), degrees.</summary>
     public double MaxFoldAngleDeg { get; init; } = 175;
+    /// <summary>Creases folded less than this are drawn flat by the sheets, degrees (the pipeline sets the
+    /// checks' tolerance). A crease held flat (<see cref="FamilyConstraints.FlatCreases"/>) stays within
+    /// <see cref="HeldFlatShare"/> of it, so round-off cannot turn it into a fold.</summary>
+    public double DrawnFlatBelowDeg { get; init; } = 0.5;
+    public const double HeldFlatShare = 0.9;
     /// <summary>Every edge stays at least this fraction of its draped length.</summary>
     public double MinEdgeLengthFraction { get; init; } = 0.25;
-    /// <summary>Shortest crease allowed, metres at full scale (the job's minimum crease on the model
-    /// times the scale); an edge already shorter in the drape may not shrink below its draped length.</summary>
+    /// <summary>Shortest crease (interior edge) allowed, metres at full scale (the job's minimum crease on the
+    /// model times the scale); a crease already shorter in the drape may not shrink below its draped length.
+    /// The outline is cut, not folded, and keeps only <see cref="MinEdgeLengthFraction"/>.</summary>
     public double MinEdgeLengthM { get; init; }
     /// <summary>Largest allowed constraint residual at the end (radians, or scaled planarity): the
     /// converged flag needs every constraint within it.</summary>

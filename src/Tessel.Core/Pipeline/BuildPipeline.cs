@@ -47,6 +47,16 @@ public sealed record PipelineResult(
 /// the unfolded pattern, and the folded-model checks measure creases in millimetres at that scale.</remarks>
 public static class BuildPipeline
 {
+    /// <summary>Rebuilds with fewer cells when the fit cannot hold the minimum crease (each round a full
+    /// tessellation and fit), and the share of the cells each round keeps (at least one fewer).</summary>
+    private const int MaxCoarsenings = 3;
+    private const double CoarseningShare = 0.85;
+
+    private static int? Fewer(int? count) => count is int n ? Math.Max(2, Math.Min(n - 1, (int)Math.Floor(n * CoarseningShare))) : null;
+
+    private static string CellsOf(TessellationSpec s) => s.CellsX is int x && s.CellsY is int y
+        ? $"{x} x {y} cells" : FormattableString.Invariant($"cells of {s.CellSize:0.###} (tessellation.cellSize)");
+
     /// <param name="decodeImage">Decodes the PNG of a height-map target; null when no image decoder is
     /// available (a height-map job then fails with a <see cref="JobError"/>).</param>
     /// <exception cref="JobError">Bad input: nothing of the build is usable.</exception>
@@ -55,6 +65,9 @@ public static class BuildPipeline
     {
         var target = TargetStage.Run(job, decodeImage, progress);
         var tessellation = TessellationStage.Run(job, target.Target, progress);
+        // Later stages and the report see the cells the pattern was made with.
+        if (tessellation.LengthRepair is { } lengthened)
+            job = job with { Tessellation = job.Tessellation with { CellsX = lengthened.CellsX, CellsY = lengthened.CellsY, CellSize = lengthened.CellSize } };
         var pattern = tessellation.Pattern;
         // The size is known exactly now (a mesh target without a footprint gets its cell counts only here).
         double raster = job.Outputs.Png ? SheetLimits.PngRasterBytes(job.Fabrication.Sheet.WidthMm, job.Fabrication.Sheet.HeightMm) : 0;
@@ -65,6 +78,25 @@ public static class BuildPipeline
         double strainLimit = SheetStage.SettingsFor(job).Material.StrainLimit;
 
         var fit = FitStage.Run(job, pattern, target.Target, progress, tessellation.DrapeOn, tessellation.Coarser);
+        // Every change of the job's cells, in order, for the warnings.
+        var cellChanges = new List<string>();
+        if (tessellation.LengthRepair is { } lengthRepair) cellChanges.Add(lengthRepair.Message);
+        for (int round = 0; round < MaxCoarsenings && fit.Fit.Buildable && fit.ShortCreases > 0; round++)
+        {
+            var spec = job.Tessellation;
+            var coarser = job with { Tessellation = spec with { CellsX = Fewer(spec.CellsX), CellsY = Fewer(spec.CellsY), CellSize = spec.CellSize / CoarseningShare } };
+            string before = CellsOf(job.Tessellation), after = CellsOf(coarser.Tessellation);
+            if (after == before) break;
+            progress.Step($"{fit.ShortCreases} crease(s) of the fit stay under fitting.bounds.minEdgeLengthMm; rebuilding with {after} instead of {before}");
+            var retried = TessellationStage.Run(coarser, target.Target, progress);
+            if (retried.LengthRepair is { } further)
+                coarser = coarser with { Tessellation = coarser.Tessellation with { CellsX = further.CellsX, CellsY = further.CellsY, CellSize = further.CellSize } };
+            var refit = FitStage.Run(coarser, retried.Pattern, target.Target, progress, retried.DrapeOn, retried.Coarser);
+            if (!refit.Fit.Buildable) break;
+            cellChanges.Add($"the fit with {before} left {fit.ShortCreases} crease(s) under fitting.bounds.minEdgeLengthMm and no refit lengthened them: rebuilt with {CellsOf(coarser.Tessellation)}; for more cells choose a larger model (a smaller fabrication.scale)");
+            if (retried.LengthRepair is { } furtherRepair) cellChanges.Add(furtherRepair.Message);
+            (job, tessellation, pattern, fit) = (coarser, retried, retried.Pattern, refit);
+        }
         FlatPattern? unfolded = null;
         if (job.Fabrication.AutoScale)
         {
@@ -74,6 +106,7 @@ public static class BuildPipeline
 
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
+        warnings.AddRange(cellChanges);
         if (tessellation.FoldRepair is { } repair) warnings.Add(repair.Message);
         if (tessellation.Follow is { CanFollow: false, Message: { } followWarning }) warnings.Add(followWarning);
         warnings.AddRange(fit.Fit.Adjustments);
@@ -124,8 +157,8 @@ public static class BuildPipeline
             yield return $"{checks.Strain.FacetsOverLimit.Length} facet(s) need more than the material's {strainLimit * 100:0.##} % strain to lie flat (largest {checks.Strain.MaxStrain * 100:0.###} %)";
         if (checks.FoldBounds is { Violations: > 0 } fb)
             yield return $"{fb.Violations} fold(s) outside fitting.bounds fold angles {Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0):0.###} to {job.Fitting.Bounds.MaxFoldAngleDeg:0.###} deg ({fb.BelowMinimum} below, {fb.AboveMaximum} above; worst by {fb.MaxViolationRad * 180 / Math.PI:0.###} deg); creases under {FoldRoles.FlatToleranceDeg} deg are drawn flat";
-        if (checks.ShortEdgeCount > 0)
-            yield return $"{checks.ShortEdgeCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestEdgeMm:0.##} mm)";
+        if (checks.ShortCreaseCount > 0)
+            yield return $"{checks.ShortCreaseCount} crease(s) shorter than fitting.bounds.minEdgeLengthMm = {job.Fitting.Bounds.MinEdgeLengthMm} mm at model scale (shortest {checks.ShortestCreaseMm:0.##} mm)";
         if (promisesSynclasticEnvelope && checks.Envelope is { Synclastic: false } env)
             yield return $"the envelope is not synclastic: angle defect <= 0 at {env.Interior - env.Positive} of {env.Interior} interior envelope vertices (smallest {env.MinDefect:0.##E+0} rad); try another foldDepth or sectorAngleDeg";
         if (!checks.Path.ReachedNearFlat)

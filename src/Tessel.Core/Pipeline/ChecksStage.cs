@@ -13,8 +13,8 @@ public sealed record FoldedModelChecks(
     CollisionResult FittedCollisions,
     IReadOnlyList<PathCollisionFrame> PathCollisions,
     IReadOnlyList<FoldAngleRow> FoldAngles,
-    int ShortEdgeCount,
-    double ShortestEdgeMm,
+    int ShortCreaseCount,
+    double ShortestCreaseMm,
     EnvelopeCurvature? Envelope,
     FoldBoundCount FoldBounds);
 
@@ -28,8 +28,8 @@ public sealed record ChecksStageResult(
     IReadOnlyList<PathCollisionFrame> PathCollisions,
     IReadOnlyList<FoldAngleRow> FoldAngles,
     FlatStrainResult Strain,
-    int ShortEdgeCount,
-    double ShortestEdgeMm,
+    int ShortCreaseCount,
+    double ShortestCreaseMm,
     EnvelopeCurvature? Envelope,
     FoldBoundCount FoldBounds)
 {
@@ -89,17 +89,21 @@ public static class ChecksStage
         var fittedCollisions = PanelCollisions.Find(fitted);
         var pathCollisions = PanelCollisions.AlongPath(fitted, path);
         var foldAngles = FoldAngleTable.Build(fitted, job.Fabrication.Scale);
-        var foldBounds = FoldRoles.Bounds(fitted, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg);
+        var foldBounds = FoldRoles.Bounds(fitted, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg, job.Fitting.Tolerance);
 
         double minMm = job.Fitting.Bounds.MinEdgeLengthMm, shortest = double.PositiveInfinity;
         int shortCount = 0;
+        // A crease is an interior edge: the outline is cut, and a cut may be as short as it likes.
         for (int e = 0; e < fitted.EdgeCount; e++)
         {
+            if (!fitted.IsInterior(e)) continue;
             var a = fitted.Vertex(fitted.EdgeVertices[2 * e]);
             var b = fitted.Vertex(fitted.EdgeVertices[2 * e + 1]);
             double mm = (b - a).Length * 1000 / job.Fabrication.Scale;
             shortest = Math.Min(shortest, mm);
-            if (mm < minMm) shortCount++;
+            // The fit holds the bound to its constraint tolerance (scaled edge lengths): a crease at the
+            // minimum less a part in a billion is at the minimum.
+            if (mm < minMm * (1 - 1e-9)) shortCount++;
         }
         progress.Step($"collisions {fittedCollisions.Count + pathCollisions.Sum(f => f.Collisions.Count)}");
         EnvelopeCurvature? curvature = null;
@@ -119,6 +123,6 @@ public static class ChecksStage
         var strain = FlatLayoutStrain.Measure(flat, strainLimit);
         progress.Step($"max flat strain {strain.MaxStrain * 100:0.####} % (limit {strainLimit * 100:0.##} %)");
         return new ChecksStageResult(flat, folded.Rigidity, folded.Path, folded.FittedCollisions, folded.PathCollisions,
-            folded.FoldAngles, strain, folded.ShortEdgeCount, folded.ShortestEdgeMm, folded.Envelope, folded.FoldBounds);
+            folded.FoldAngles, strain, folded.ShortCreaseCount, folded.ShortestCreaseMm, folded.Envelope, folded.FoldBounds);
     }
 }

@@ -12,7 +12,9 @@ namespace Tessel.Core.Pipeline;
 /// <param name="Fit">Fit at the job's epsilon (best of the starts).</param>
 /// <param name="Front">Pareto points of the sweep in epsilon order; empty without a sweep.</param>
 /// <param name="RolesChanged">Creases whose role the fitted geometry changed from the generator's (see <see cref="FoldRoles"/>).</param>
-public sealed record FitStageResult(FitResult Fit, IReadOnlyList<ParetoPoint> Front, int RolesChanged = 0);
+/// <param name="ShortCreases">Creases of the fit shorter than the job's minimum crease at its fixed scale
+/// (<see cref="FitSettings.MinEdgeLengthM"/>; 0 with an automatic scale).</param>
+public sealed record FitStageResult(FitResult Fit, IReadOnlyList<ParetoPoint> Front, int RolesChanged = 0, int ShortCreases = 0);
 
 /// <summary>Third stage: draped pattern -> fitted pattern by the epsilon-constraint method.</summary>
 public static class FitStage
@@ -28,6 +30,7 @@ public static class FitStage
         MaxSectorAngleDeg = job.Fitting.Bounds.MaxSectorAngleDeg,
         MinFoldAngleDeg = Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0),
         MaxFoldAngleDeg = job.Fitting.Bounds.MaxFoldAngleDeg,
+        DrawnFlatBelowDeg = FoldRoles.FlatToleranceDeg,
         // With an automatic scale the scale is chosen after the fit, from facets at least ten times the
         // material's thickness, so the shortest crease is not a bound of the fit.
         MinEdgeLengthM = job.Fabrication.AutoScale ? 0 : job.Fitting.Bounds.MinEdgeLengthMm / 1000 * job.Fabrication.Scale,
@@ -42,7 +45,7 @@ public static class FitStage
     {
         var settings = SettingsFor(job);
         progress.Stage("fit", $"{settings.Starts} start(s), epsilon {settings.EpsilonDeg:0.###} deg, {pattern.Mesh.VertexCount * 3} unknowns");
-        int shortInDrape = ShortEdges(pattern.Mesh, settings.MinEdgeLengthM);
+        int shortInDrape = CreaseLengths.ShorterThan(pattern.Mesh, settings.MinEdgeLengthM);
         if (shortInDrape > 0)
             progress.Step($"{shortInDrape} crease(s) are already shorter than fitting.bounds.minEdgeLengthMm in the drape; they may not shrink further (fewer cells or a larger model scale lengthens them)");
         FitResult fit;
@@ -58,7 +61,8 @@ public static class FitStage
             throw new FitBreakdownError("the fit produced non-finite vertex positions; check the target's size and units and the tessellation's cell size", new ArithmeticException());
         // Roles come from the fitted geometry, whatever the generator assumed: the sheets must fold what the fit made.
         var relabelled = FoldRoles.FromGeometry(fit.Mesh);
-        int changed = FoldRoles.Changed(fit.Mesh, relabelled);
+        // Against the generator's roles: a refit that held fold bands carries roles of its own.
+        int changed = FoldRoles.Changed(pattern.Mesh, relabelled);
         fit = fit with { Mesh = relabelled };
         progress.Step($"{Verdict(fit)} after {fit.History.Count} steps; shape RMS {fit.Shape.Rms * 1000:0.###} mm, largest constraint residual {fit.Residuals.MaxConstraintViolation:0.###E+0}");
         if (changed > 0) progress.Step($"{changed} crease role(s) taken from the fitted fold angles instead of the generator's");
@@ -80,15 +84,8 @@ public static class FitStage
             foreach (var p in front)
                 progress.Step($"  epsilon {p.EpsilonDeg:0.###} deg: shape RMS {p.ShapeRms * 1000:0.###} mm{(p.Converged ? "" : " (not converged)")}");
         }
-        return new FitStageResult(fit, front, changed);
-    }
-
-    private static int ShortEdges(CreaseMesh mesh, double minimum)
-    {
-        int count = 0;
-        for (int e = 0; e < mesh.EdgeCount; e++)
-            if ((mesh.Vertex(mesh.EdgeVertices[2 * e + 1]) - mesh.Vertex(mesh.EdgeVertices[2 * e])).Length < minimum) count++;
-        return count;
+        // As the fit holds the bound: to a part in a billion.
+        return new FitStageResult(fit, front, changed, CreaseLengths.ShorterThan(fit.Mesh, settings.MinEdgeLengthM * (1 - 1e-9)));
     }
 
     /// <summary>One phrase: buildable and finished, buildable with room to improve, or not buildable.</summary>

@@ -51,5 +51,10 @@ public enum FamilyConstraints
     /// <summary>Every interior non-flat crease keeps the sign of its role (mountain / valley) and stays
     /// away from flat and from fully closed.</summary>
     FoldSigns = 8,
+    /// <summary>Every interior crease whose role is flat stays drawn flat (within
+    /// <see cref="Fitting.FitSettings.HeldFlatShare"/> of <see cref="Fitting.FitSettings.DrawnFlatBelowDeg"/>). Not a family's own constraint: set on the
+    /// refit of a family without fold signs, whose roles were read from its first fit (see
+    /// <see cref="Fitting.FoldBands"/>).</summary>
+    FlatCreases = 16,
     All = QuadPlanarity | Kawasaki | Developability | FoldSigns,
 }

@@ -47,7 +47,7 @@ public static class ModelOutputs
         output.AddFigure("fit", "maxPlanarityScaled", fit.Residuals.MaxPlanarity);
         // The fitter only sees the fold-angle bounds of families that constrain fold signs; the figure also
         // takes the folds of the fitted geometry that miss the bounds, so it never reads 0 while one does.
-        var folds = FoldRoles.Bounds(mesh, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg);
+        var folds = FoldRoles.Bounds(mesh, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg, job.Fitting.Tolerance);
         output.AddFigure("fit", "maxBoundViolation", Math.Max(fit.Residuals.MaxBoundViolation, folds.MaxViolationRad));
         output.AddFigure("fit", "rolesFromFittedGeometry", (long)stage.RolesChanged);
         output.AddFigure("fit", "linearSolver", fit.Solver.Method);
@@ -98,8 +98,8 @@ public static class ModelOutputs
         output.AddFigure("checks", "flatMaxFacetStrain", checks.Strain.MaxStrain);
         output.AddFigure("checks", "strainLimit", strainLimit);
         output.AddFigure("checks", "facetsOverStrainLimit", (long)checks.Strain.FacetsOverLimit.Length);
-        output.AddFigure("checks", "shortestEdgeMm", checks.ShortestEdgeMm);
-        output.AddFigure("checks", "edgesBelowMinimumLength", (long)checks.ShortEdgeCount);
+        output.AddFigure("checks", "shortestCreaseMm", checks.ShortestCreaseMm);
+        output.AddFigure("checks", "creasesBelowMinimumLength", (long)checks.ShortCreaseCount);
         if (checks.FoldBounds is { } fb)
         {
             output.AddFigure("checks", "folds", (long)fb.Folds);

@@ -52,7 +52,37 @@ public class RobustFitTests(ITestOutputHelper output)
         foreach (var f in m.Faces)
             for (int k = 0; k < f.Length; k++)
                 Assert.InRange(Corner(m, f[(k + f.Length - 1) % f.Length], f[k], f[(k + 1) % f.Length]) * 180 / Math.PI, 5 - 1e-6, 175 + 1e-6);
+        AssertBoundsHeld(what, m);
         Assert.InRange(fit.Shape.Rms, 0, rmsBandM);
+    }
+
+    /// <summary>The job's default bounds, measured here on the fitted mesh: every crease (interior edge) at
+    /// least 3 mm at the default scale 1:100, and every crease either drawn flat (under 0.5 deg) or folded
+    /// 1 to 175 deg. Both within the fit's constraint tolerance (1e-10, relative or in radians).</summary>
+    private static void AssertBoundsHeld(string what, CreaseMesh m)
+    {
+        for (int e = 0; e < m.EdgeCount; e++)
+        {
+            int l = m.EdgeFaceLeft[e], r = m.EdgeFaceRight[e];
+            if (l < 0 || r < 0) continue;
+            double mm = (m.Vertex(m.EdgeVertices[2 * e + 1]) - m.Vertex(m.EdgeVertices[2 * e])).Length * 1000 / 100;
+            Assert.True(mm >= 3 * (1 - 1e-9), $"{what}: crease {e} is {mm:0.###} mm at 1:100");
+            // The angle between the two facets' normals (Newell's method) is the fold angle's size.
+            var nl = Normal(m, m.Faces[l]); var nr = Normal(m, m.Faces[r]);
+            double deg = Math.Acos(Math.Clamp(Vec3.Dot(nl, nr), -1, 1)) * 180 / Math.PI;
+            Assert.True(deg < 0.5 || (deg >= 1 - 1e-6 && deg <= 175 + 1e-6), $"{what}: crease {e} folds {deg:0.####} deg");
+        }
+    }
+
+    private static Vec3 Normal(CreaseMesh m, int[] f)
+    {
+        double x = 0, y = 0, z = 0;
+        for (int k = 0; k < f.Length; k++)
+        {
+            var p = m.Vertex(f[k]); var q = m.Vertex(f[(k + 1) % f.Length]);
+            x += (p.Y - q.Y) * (p.Z + q.Z); y += (p.Z - q.Z) * (p.X + q.X); z += (p.X - q.X) * (p.Y + q.Y);
+        }
+        return new Vec3(x, y, z).Normalized();
     }
 
     [Fact]
@@ -77,6 +107,7 @@ public class RobustFitTests(ITestOutputHelper output)
         for (int v = 0; v < fit.Mesh.VertexCount; v++)
             Assert.True(double.IsFinite(target.HeightAt(fit.Mesh.Vertex(v).X, fit.Mesh.Vertex(v).Y)) || fit.Mesh.BoundaryVertices()[v]);
         Assert.True(fit.Mesh.VertexCount > 20);
+        AssertBoundsHeld("ring", fit.Mesh);
         // Measured 69 mm; the band stays well under the dome's own 0.6 m of height change across the ring.
         Assert.InRange(fit.Shape.Rms, 0, 0.2);
     }
