@@ -224,9 +224,12 @@ internal static class Commands
         {
             var loaded = JobLoader.Load(r.GetValue(job)!);
             var target = TargetFactory.Build(loaded.Target, loaded.BaseDirectory, HeightMapImage.Decode);
-            CheckFamilyServes(loaded, target);
+            var tessellation = CheckFamilyServes(loaded, target);
             var f = target.Footprint;
             stdout.WriteLine($"OK {loaded.Name}: {target.Description}; footprint {f.Width:0.###} x {f.Depth:0.###} m; family {loaded.Tessellation.Family}");
+            // Changes the build will make to the job's cells, said before any fit.
+            if (tessellation.LengthRepair is { } lengthened) stdout.WriteLine($"note: {lengthened.Message}");
+            if (tessellation.FoldRepair is { } deepened) stdout.WriteLine($"note: {deepened.Message}");
             var sheet = loaded.Fabrication.Sheet;
             if (loaded.Outputs.Png && SheetLimits.PngNote(sheet.WidthMm, sheet.HeightMm) is { } note) stdout.WriteLine($"note: {note}");
             return ExitCodes.Ok;
@@ -236,9 +239,9 @@ internal static class Commands
 
     /// <summary>Generates the job's pattern on its target (no fit): a family that cannot make a pattern
     /// there is refused as bad input, naming a family that suits the target.</summary>
-    internal static void CheckFamilyServes(Job job, ITargetSurface target)
+    internal static TessellationStageResult CheckFamilyServes(Job job, ITargetSurface target)
     {
-        try { TessellationStage.Run(job, target, ProgressReporter.Silent); }
+        try { return TessellationStage.Run(job, target, ProgressReporter.Silent); }
         catch (JobError e)
         {
             var curvature = Tessel.Core.Tessellation.CurvatureFigures.Sample(target);

@@ -77,6 +77,21 @@ public class ProgramTests
     }
 
     [Fact]
+    public void ValidateSaysBeforeAnyFitWhenTheCellsWillBeLoweredForTheMinimumCrease()
+    {
+        // A pavilion's wave roof (invented), 22 x 22 Miura cells at 1:60: the drape's creases are under the
+        // default 3 mm minimum on the model, so the build will use fewer cells; validate names the change.
+        string dir = TestPaths.NewTempFolder();
+        string job = Path.Combine(dir, "pavilion.json");
+        File.WriteAllText(job, """{ "name": "pavilion", "target": { "kind": "sinusoidal-wave", "amplitude": 0.15, "wavelength": 4, "footprint": { "width": 4.4, "depth": 2.6 } }, "tessellation": { "family": "miura", "cellsX": 22, "cellsY": 22 }, "fabrication": { "scale": 60 } }""");
+        var (code, stdout, _) = Run("validate", job);
+        Assert.Equal(ExitCodes.Ok, code);
+        var note = Assert.Single(stdout.Split('\n'), l => l.StartsWith("note: ", StringComparison.Ordinal));
+        Assert.Contains("tessellation.cellsX x cellsY lowered from 22 x 22", note);
+        Assert.Contains("fabrication.scale", note);
+    }
+
+    [Fact]
     public void ValidateReportsUndefinedFormulaWithItsLocation()
     {
         string dir = TestPaths.NewTempFolder();
