@@ -122,6 +122,31 @@ public static class BuildPipeline
             }
             warnings.Add(why + "; outputs written because the job accepts an unconverged fit");
         }
+        // The job's bounds belong to buildable: a result that still misses them after every repair above is
+        // refused like an unbuildable fit (its adjustments, among the warnings, say what was tried).
+        var folds = FoldRoles.Bounds(fit.Fit.Mesh, Math.Max(job.Fitting.Bounds.MinFoldAngleDeg, 0), job.Fitting.Bounds.MaxFoldAngleDeg, job.Fitting.Tolerance);
+        if (fit.Fit.Buildable && (fit.ShortCreases > 0 || folds.Violations > 0))
+        {
+            var misses = new List<string>();
+            var fixes = new List<string>();
+            if (fit.ShortCreases > 0)
+            {
+                misses.Add($"{fit.ShortCreases} crease(s) under fitting.bounds.minEdgeLengthMm");
+                fixes.Add("a larger model (a smaller fabrication.scale), fewer cells or a smaller minEdgeLengthMm");
+            }
+            if (folds.Violations > 0)
+            {
+                misses.Add($"{folds.Violations} fold(s) outside fitting.bounds fold angles");
+                fixes.Add("more cells or wider fitting.bounds.minFoldAngleDeg / maxFoldAngleDeg");
+            }
+            string why = $"the fit misses the job's bounds after every repair ({string.Join(", ", misses)})";
+            if (!job.Fitting.AcceptUnconverged)
+            {
+                string problem = why + $"; no sheets were written. Try {string.Join("; or ", fixes)}; or pass --accept-unconverged";
+                return new PipelineResult(job, target, tessellation, fit, unfolded, null, null, null, warnings, PipelineStop.UnbuildableFit, problem);
+            }
+            warnings.Add(why + "; outputs written because the job accepts an unconverged fit");
+        }
 
         var folded = ChecksStage.FoldedModel(job, fit.Fit.Mesh, progress, pattern.Envelope);
         unfolded ??= UnfoldingStage.Run(fit.Fit.Mesh, progress);

@@ -77,6 +77,34 @@ public class BuildPipelineTests
     }
 
     [Fact]
+    public void AResultThatStillMissesItsBoundsIsRefusedLikeAnUnbuildableFit()
+    {
+        // A kiosk's steep dome (invented) in a free net whose folds may not exceed 4 deg: every band refit
+        // fails, so the build stops after the fit, names the bound and writes no sheets; accepting an
+        // unconverged fit writes them with the miss among the warnings.
+        const string text = """
+            { "name": "kiosk", "seed": 1,
+              "target": { "kind": "spherical-cap", "radius": 3, "rise": 1, "footprint": { "width": 3, "depth": 3 } },
+              "tessellation": { "family": "free-triangulated", "cellsX": 6, "cellsY": 6 },
+              "fitting": { "bounds": { "maxFoldAngleDeg": 4 } },
+              "fabrication": { "scale": 20, "sheet": { "name": "A3" } },
+              "outputs": { "obj": false, "png": false, "svg": true, "dxf": false, "pdf": false, "report": false } }
+            """;
+        var job = JobLoader.Parse(text, "kiosk.json", Path.GetTempPath());
+        var r = BuildPipeline.Run(job, null, ProgressReporter.Silent);
+        Assert.Equal(PipelineStop.UnbuildableFit, r.Stop);
+        Assert.Contains("fold(s) outside fitting.bounds fold angles", r.Problem);
+        Assert.Contains("maxFoldAngleDeg", r.Problem);
+        Assert.Null(r.Sheets);
+
+        var accepted = BuildPipeline.Run(job with { Fitting = job.Fitting with { AcceptUnconverged = true } }, null, ProgressReporter.Silent);
+        Assert.Null(accepted.Problem);
+        Assert.NotNull(accepted.Sheets);
+        Assert.Contains(accepted.Warnings, w => w.StartsWith("the fit misses the job's bounds", StringComparison.Ordinal));
+        Assert.True(accepted.Checks!.FoldBounds.AboveMaximum > 0);
+    }
+
+    [Fact]
     public void MiuraOnASaddleBuildsCompletelyWithoutWarnings()
     {
         var r = BuildPipeline.Run(JobFor(Saddle, "miura", """{ "scale": 20, "sheet": { "name": "A3" } }"""), null, ProgressReporter.Silent);
