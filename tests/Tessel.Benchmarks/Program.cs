@@ -4,7 +4,7 @@ using Tessel.Benchmarks;
 // Verbs: solvers [--max-grid N]   sparse SPD solvers on Gauss-Newton edge-length systems
 //        fit [sizes] [cap=N] [-v] Miura-to-saddle fit times and peak memory (see FitBenchmark.cs)
 //        factor [sizes]           one factorisation of the fit's own matrix by each direct solver, then PCG
-//        robust [cells=6,12,20] [seeds=1,2,3] [targets=..] [families=..]  builds of an invented job corpus
+//        robust [cells=6,12,20] [seeds=1,2,3] [targets=..] [families=..] [scale=50] [fit-only] [-v]  builds of an invented job corpus
 var verb = args.Length > 0 ? args[0] : "";
 switch (verb)
 {

@@ -12,7 +12,7 @@ namespace Tessel.Benchmarks;
 /// calls suited, several cell counts and seeds, default settings otherwise) through the whole pipeline in
 /// memory and tabulates how many are buildable, how many finished, time and shape error, and every
 /// refusal with its cause.</summary>
-/// <remarks>Usage: robust [cells=6,12,20] [seeds=1,2,3] [targets=name,...] [families=name,...] [-v].
+/// <remarks>Usage: robust [cells=6,12,20] [seeds=1,2,3] [targets=name,...] [families=name,...] [scale=50] [fit-only] [-v].
 /// The jobs are scenarios of our own, never the bundled examples; none of them tunes a default.</remarks>
 public static class RobustnessBenchmark
 {
