@@ -137,7 +137,7 @@ internal sealed class FitRun
         double objective = Objective(out _), previousViolation = MaxViolation();
         stop = "iteration limit reached in phase 2";
         double lastDecrease = double.NaN;
-        while (_solves < budget - ProjectionReserve)
+        while (!_s.ConstraintsOnly && _solves < budget - ProjectionReserve)
         {
             int roundBudget = Math.Min(RoundSteps, budget - ProjectionReserve - _solves);
             Minimise(Optimality, roundBudget, () => false, out bool stalled);

@@ -47,6 +47,9 @@ public sealed record FitSettings
     /// start whose sheet-wide shape already suits the constraints (a coarse start) and which the pull
     /// would take back toward the target.</summary>
     public bool PullTowardTargetFirst { get; init; } = true;
+    /// <summary>Only restore the constraints from the start (phase 1), with no shape phase: for a refit that
+    /// adds a bound to a fitted result whose shape is already what the fit could reach.</summary>
+    public bool ConstraintsOnly { get; init; }
     /// <summary>Initial augmented-Lagrangian penalty (dimensionless: constraints are in radians).</summary>
     public double InitialPenalty { get; init; } = 1e6;
 

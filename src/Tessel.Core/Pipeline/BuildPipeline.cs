@@ -47,16 +47,6 @@ public sealed record PipelineResult(
 /// the unfolded pattern, and the folded-model checks measure creases in millimetres at that scale.</remarks>
 public static class BuildPipeline
 {
-    /// <summary>Rebuilds with fewer cells when the fit cannot hold the minimum crease (each round a full
-    /// tessellation and fit), and the share of the cells each round keeps (at least one fewer).</summary>
-    private const int MaxCoarsenings = 3;
-    private const double CoarseningShare = 0.85;
-
-    private static int? Fewer(int? count) => count is int n ? Math.Max(2, Math.Min(n - 1, (int)Math.Floor(n * CoarseningShare))) : null;
-
-    private static string CellsOf(TessellationSpec s) => s.CellsX is int x && s.CellsY is int y
-        ? $"{x} x {y} cells" : FormattableString.Invariant($"cells of {s.CellSize:0.###} (tessellation.cellSize)");
-
     /// <param name="decodeImage">Decodes the PNG of a height-map target; null when no image decoder is
     /// available (a height-map job then fails with a <see cref="JobError"/>).</param>
     /// <exception cref="JobError">Bad input: nothing of the build is usable.</exception>
@@ -78,25 +68,16 @@ public static class BuildPipeline
         double strainLimit = SheetStage.SettingsFor(job).Material.StrainLimit;
 
         var fit = FitStage.Run(job, pattern, target.Target, progress, tessellation.DrapeOn, tessellation.Coarser);
-        // Every change of the job's cells, in order, for the warnings.
-        var cellChanges = new List<string>();
-        if (tessellation.LengthRepair is { } lengthRepair) cellChanges.Add(lengthRepair.Message);
-        for (int round = 0; round < MaxCoarsenings && fit.Fit.Buildable && fit.ShortCreases > 0; round++)
-        {
-            var spec = job.Tessellation;
-            var coarser = job with { Tessellation = spec with { CellsX = Fewer(spec.CellsX), CellsY = Fewer(spec.CellsY), CellSize = spec.CellSize / CoarseningShare } };
-            string before = CellsOf(job.Tessellation), after = CellsOf(coarser.Tessellation);
-            if (after == before) break;
-            progress.Step($"{fit.ShortCreases} crease(s) of the fit stay under fitting.bounds.minEdgeLengthMm; rebuilding with {after} instead of {before}");
-            var retried = TessellationStage.Run(coarser, target.Target, progress);
-            if (retried.LengthRepair is { } further)
-                coarser = coarser with { Tessellation = coarser.Tessellation with { CellsX = further.CellsX, CellsY = further.CellsY, CellSize = further.CellSize } };
-            var refit = FitStage.Run(coarser, retried.Pattern, target.Target, progress, retried.DrapeOn, retried.Coarser);
-            if (!refit.Fit.Buildable) break;
-            cellChanges.Add($"the fit with {before} left {fit.ShortCreases} crease(s) under fitting.bounds.minEdgeLengthMm and no refit lengthened them: rebuilt with {CellsOf(coarser.Tessellation)}; for more cells choose a larger model (a smaller fabrication.scale)");
-            if (retried.LengthRepair is { } furtherRepair) cellChanges.Add(furtherRepair.Message);
-            (job, tessellation, pattern, fit) = (coarser, retried, retried.Pattern, refit);
-        }
+        var cells = FewerCells.UntilCreasesHold(job, tessellation, fit, tessellation.LengthRepair is { } lengthRepair ? [lengthRepair.Message] : [],
+            coarser =>
+            {
+                var retried = TessellationStage.Run(coarser, target.Target, progress);
+                if (retried.LengthRepair is { } further)
+                    coarser = coarser with { Tessellation = coarser.Tessellation with { CellsX = further.CellsX, CellsY = further.CellsY, CellSize = further.CellSize } };
+                return (coarser, retried, FitStage.Run(coarser, retried.Pattern, target.Target, progress, retried.DrapeOn, retried.Coarser));
+            }, progress);
+        (job, tessellation, fit) = (cells.Job, cells.Tessellation, cells.Fit);
+        pattern = tessellation.Pattern;
         FlatPattern? unfolded = null;
         if (job.Fabrication.AutoScale)
         {
@@ -106,7 +87,7 @@ public static class BuildPipeline
 
         var warnings = new List<string>();
         if (!tessellation.Advice.Suits) warnings.Add(tessellation.Advice.Message);
-        warnings.AddRange(cellChanges);
+        warnings.AddRange(cells.Changes);
         if (tessellation.FoldRepair is { } repair) warnings.Add(repair.Message);
         if (tessellation.Follow is { CanFollow: false, Message: { } followWarning }) warnings.Add(followWarning);
         warnings.AddRange(fit.Fit.Adjustments);
