@@ -158,20 +158,27 @@ public static class ContinuationFitter
     /// <summary>Refits a buildable result whose creases fall below <see cref="FitSettings.MinEdgeLengthM"/>
     /// with that bound held, from the result itself; keeps the first refit that is buildable, else the result
     /// with a note of how many creases stay short.</summary>
-    /// <remarks>Two refits, in order. A whole fit with twice the job's steps: the bound moves the result off
-    /// the constraints, and the shape phase creeps back (measured on a free net of 20 x 20 cells on a
-    /// ring-sector mesh at 1:50: 26 short creases, residual 2.6e-2 after 300 steps, buildable within 600). Then
-    /// the constraints alone, no shape phase: on reverse-curvature sheets the shape phase drifts off at every
-    /// budget (a 6 x 6 cap at 1:50, 3 short creases: 6.8e-5 after 300 steps, 2.6e-5 after 600, 3.1e-5 after
-    /// 900) while restoring the constraints alone lands in a few steps, 58.9 mm RMS against 61.7 with the
-    /// creases short.</remarks>
+    /// <remarks>Three refits, in order. A whole fit with the job's steps (most land here). The constraints
+    /// alone, no shape phase: on reverse-curvature sheets the shape phase drifts off at every budget (a 6 x 6
+    /// cap at 1:50, 3 short creases: 6.8e-5 rad after 300 steps, 2.6e-5 after 600, 3.1e-5 after 900) while
+    /// restoring the constraints alone lands in a few steps, 58.9 mm RMS against 61.7 with the creases short.
+    /// A whole fit with twice the steps: on a free net the bound moves the result far off the constraints
+    /// and the shape phase needs longer to come back (20 x 20 cells on a ring-sector mesh at 1:50, 26 short
+    /// creases: 2.6e-2 after 300 steps, constraints alone 0.26, buildable within 600). The whole fit comes
+    /// first because twice its steps are not the same fit: on a 12 x 12 reverse-curvature ring sector the
+    /// longer budget ended elsewhere, with facets overlapping in the flat layout.</remarks>
     private static FitResult HoldShortestCrease(GeneratedPattern pattern, ITargetSurface target, FitSettings settings,
         FitResult fit, Func<ISpdSolver> solverFactory, Action<string>? report)
     {
         int shortBefore = ShortEdges(fit.Mesh, pattern.Mesh, settings.MinEdgeLengthM);
         if (shortBefore == 0) return fit;
         var history = new List<FitIteration>(fit.History);
-        FitSettings[] attempts = [settings with { Starts = 1, MaxIterations = 2 * settings.MaxIterations }, settings with { Starts = 1, ConstraintsOnly = true }];
+        FitSettings[] attempts =
+        [
+            settings with { Starts = 1 },
+            settings with { Starts = 1, ConstraintsOnly = true },
+            settings with { Starts = 1, MaxIterations = 2 * settings.MaxIterations },
+        ];
         foreach (var attempt in attempts)
         {
             var held = EpsilonConstraintFitter.Fit(pattern, target, attempt, solverFactory(), fit.Mesh.Positions);
