@@ -82,7 +82,10 @@ internal sealed class FitRows
         {
             int a = mesh.EdgeVertices[2 * e], b = mesh.EdgeVertices[2 * e + 1];
             double len = (mesh.Vertex(b) - mesh.Vertex(a)).Length;
-            double shortest = Math.Max(s.MinEdgeLengthFraction * len, mesh.IsInterior(e) ? Math.Min(s.MinEdgeLengthM, len) : 0);
+            // The outline is held too, though a cut may be short: measured on a 12 x 12 reverse-curvature ring
+            // sector at 1:50, a refit holding only the creases shrank an outline facet until it lay over its
+            // neighbour in the flat layout (25 mm2), and the sheets were refused.
+            double shortest = Math.Max(s.MinEdgeLengthFraction * len, Math.Min(s.MinEdgeLengthM, len));
             Add(ResidualKind.EdgeLengthBound, shortest / Scale, double.PositiveInfinity, e, a, b);
         }
         bool signs = cons.HasFlag(FamilyConstraints.FoldSigns), flats = cons.HasFlag(FamilyConstraints.FlatCreases);

@@ -23,9 +23,9 @@ public sealed record FitSettings
     public const double HeldFlatShare = 0.9;
     /// <summary>Every edge stays at least this fraction of its draped length.</summary>
     public double MinEdgeLengthFraction { get; init; } = 0.25;
-    /// <summary>Shortest crease (interior edge) allowed, metres at full scale (the job's minimum crease on the
-    /// model times the scale); a crease already shorter in the drape may not shrink below its draped length.
-    /// The outline is cut, not folded, and keeps only <see cref="MinEdgeLengthFraction"/>.</summary>
+    /// <summary>Shortest crease allowed, metres at full scale (the job's minimum crease on the model times the
+    /// scale); an edge already shorter in the drape may not shrink below its draped length. The fit holds it on
+    /// outline edges too; only creases (interior edges) count as short for the checks and the refits.</summary>
     public double MinEdgeLengthM { get; init; }
     /// <summary>Largest allowed constraint residual at the end (radians, or scaled planarity): the
     /// converged flag needs every constraint within it.</summary>
