@@ -51,8 +51,7 @@ public static class ReportAssembly
             ParetoFront = [.. fit.Front],
             ChosenEpsilonDeg = fit.Front.Count > 0 ? f.EpsilonDeg : null,
             ParetoNote = ParetoNote(job, fit),
-            Convergence = f.History.Select(h => new ConvergenceStep(h.Index, h.Objective,
-                Math.Max(Math.Max(h.MaxPlanarity, h.MaxKawasaki), Math.Max(h.MaxDevelopabilityExcess, h.MaxBoundViolation)))).ToArray(),
+            Convergence = ConvergenceSteps(f.History),
             Keyframes = keyframes,
             Summary = rows.ToArray(),
             Warnings = warnings.ToArray(),
@@ -60,6 +59,14 @@ public static class ReportAssembly
             Sheets = sheets?.Sheets.ToArray() ?? [],
         };
     }
+
+    /// <summary>The fit's history as the report plots it: steps numbered in the order they ran. A fit that
+    /// continued, refitted or restarted joins several solver runs, each numbering its own steps from 0;
+    /// plotted by those numbers the runs lay over each other and the highest number is not the last step.</summary>
+    internal static ConvergenceStep[] ConvergenceSteps(IReadOnlyList<Tessel.Core.Fitting.FitIteration> history) =>
+        history.Select((h, i) => new ConvergenceStep(i, h.Objective,
+            Math.Max(Math.Max(h.MaxPlanarity, h.MaxKawasaki), Math.Max(h.MaxDevelopabilityExcess, h.MaxBoundViolation)),
+            StartsRun: i > 0 && h.Index <= history[i - 1].Index)).ToArray();
 
     /// <summary>Why a sweep point can differ from the fit used for the sheets at the same epsilon: the
     /// sweep runs one start from the plain drape and warm-starts each later epsilon from the previous

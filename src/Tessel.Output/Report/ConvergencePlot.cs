@@ -4,7 +4,8 @@ using SkiaSharp;
 namespace Tessel.Output.Report;
 
 /// <summary>Solver history on a logarithmic axis: the largest constraint residual (solid) and the
-/// objective (dashed) against iteration. Values that are not positive cannot sit on a log axis and
+/// objective (dashed) against the step number over the whole fit, with a thin grey line where a
+/// further solver run (continuation stage, refit, restart) starts. Values that are not positive cannot sit on a log axis and
 /// are left out of the lines.</summary>
 public static class ConvergencePlot
 {
@@ -12,6 +13,8 @@ public static class ConvergencePlot
     public static readonly SKColor ResidualColour = new(170, 60, 40);
     /// <summary>Colour of the objective line.</summary>
     public static readonly SKColor ObjectiveColour = new(40, 100, 140);
+    /// <summary>Colour of the thin vertical line where a further solver run of the fit starts.</summary>
+    public static readonly SKColor RunStartColour = new(120, 120, 120);
 
     /// <summary>The axes a plot of this history uses: whole decades on y, round iteration ticks on x.</summary>
     public static PlotAxes AxesFor(ConvergenceStep[] steps, int width = 640, int height = 420)
@@ -42,6 +45,12 @@ public static class ConvergencePlot
         }
 
         var ordered = steps.OrderBy(s => s.Iteration).ToArray();
+        using var runStart = PreviewCanvas.Stroke(RunStartColour, 1, antialias: false);
+        foreach (var s in ordered.Where(s => s.StartsRun))
+        {
+            float x = (float)axes.MapX(s.Iteration);
+            pc.Canvas.DrawLine(x, (float)axes.Top, x, (float)axes.Bottom, runStart);
+        }
         using var residual = PreviewCanvas.Stroke(ResidualColour, 2);
         using var objective = PreviewCanvas.Stroke(ObjectiveColour, 2);
         using var dashes = SKPathEffect.CreateDash([7, 5], 0);
@@ -52,7 +61,13 @@ public static class ConvergencePlot
         // Legend in the upper right corner of the plot area.
         float lx = axes.Right - 230, ly = axes.Top + 16;
         using var box = PreviewCanvas.Fill(new SKColor(255, 255, 255, 230));
-        pc.Canvas.DrawRect(new SKRect(lx - 8, ly - 12, axes.Right - 6, ly + 30), box);
+        bool runs = ordered.Any(s => s.StartsRun);
+        pc.Canvas.DrawRect(new SKRect(lx - 8, ly - 12, axes.Right - 6, ly + (runs ? 50 : 30)), box);
+        if (runs)
+        {
+            pc.Canvas.DrawLine(lx + 14, ly + 32, lx + 14, ly + 46, runStart);
+            pc.Text("a further solver run starts", lx + 36, ly + 44, 12, PreviewCanvas.Ink);
+        }
         pc.Canvas.DrawLine(lx, ly, lx + 28, ly, residual);
         pc.Text("largest constraint residual, rad", lx + 36, ly + 4, 12, PreviewCanvas.Ink);
         pc.Canvas.DrawLine(lx, ly + 20, lx + 28, ly + 20, objective);

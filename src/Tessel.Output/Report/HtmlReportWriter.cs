@@ -67,7 +67,7 @@ public static class HtmlReportWriter
         if (model.ParetoFront.Length > 0)
             Figure(sb, ParetoPlot.Render(model.ParetoFront, model.ChosenEpsilonDeg), "Shape error against the developability tolerance of each fit. " + model.ParetoNote);
         if (model.Convergence.Length > 0)
-            Figure(sb, ConvergencePlot.Render(model.Convergence), "Solver convergence of the fit used for the sheets: largest constraint residual in radians and the dimensionless objective, per solver step, on a logarithmic scale.");
+            Figure(sb, ConvergencePlot.Render(model.Convergence), "Solver convergence of the fit used for the sheets: largest constraint residual in radians and the dimensionless objective, per solver step over the whole fit, on a logarithmic scale; a thin grey line marks where a further solver run (continuation stage, refit or restart) starts.");
         sb.Append("</div>\n</section>\n");
 
         if (model.Sheets.Length > 0)

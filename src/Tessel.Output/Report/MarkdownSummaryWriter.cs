@@ -38,9 +38,11 @@ public static class MarkdownSummaryWriter
 
         if (model.Convergence.Length > 0)
         {
-            var last = model.Convergence.OrderBy(s => s.Iteration).Last();
-            sb.Append("Solver: ").Append(model.Convergence.Length).Append(" iterations recorded; at iteration ")
-              .Append(last.Iteration.ToString(CultureInfo.InvariantCulture)).Append(" the objective was ")
+            var last = model.Convergence.MaxBy(s => s.Iteration);
+            int runs = 1 + model.Convergence.Count(s => s.StartsRun);
+            sb.Append("Solver: ").Append(model.Convergence.Length).Append(" steps recorded")
+              .Append(runs > 1 ? $" in {runs.ToString(CultureInfo.InvariantCulture)} runs (stages, refits or restarts)" : "")
+              .Append("; at the last, step ").Append(last.Iteration.ToString(CultureInfo.InvariantCulture)).Append(", the objective was ")
               .Append(last.Objective.ToString("0.###e+0", CultureInfo.InvariantCulture)).Append(" and the largest residual ")
               .Append(last.MaxResidual.ToString("0.###e+0", CultureInfo.InvariantCulture)).Append(".\n\n");
         }

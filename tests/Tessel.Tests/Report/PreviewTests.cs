@@ -133,6 +133,20 @@ public class PreviewTests
     }
 
     [Fact]
+    public void ConvergencePlotMarksWhereAFurtherSolverRunStarts()
+    {
+        ConvergenceStep[] steps = [new(0, 2.0, 0.5), new(10, 0.02, 3e-4), new(25, 1.0, 0.1, StartsRun: true), new(40, 2e-4, 2e-7)];
+        var axes = ConvergencePlot.AxesFor(steps);
+        using var bmp = PreviewPixels.Decode(ConvergencePlot.Render(steps).Png);
+        // A quarter of the way up the plot area, clear of the legend, of both lines and of the grid (every 10 steps).
+        int y = (int)(axes.Top + 0.75f * (axes.Bottom - axes.Top));
+        Assert.True(PreviewPixels.NearestInWindow(bmp, (int)axes.MapX(25), y, 1, ConvergencePlot.RunStartColour) <= 20);
+        Assert.True(PreviewPixels.NearestInWindow(bmp, (int)axes.MapX(35), y, 1, ConvergencePlot.RunStartColour) > 20);
+        using var single = PreviewPixels.Decode(ConvergencePlot.Render([.. steps.Select(s => s with { StartsRun = false })]).Png);
+        Assert.True(PreviewPixels.NearestInWindow(single, (int)axes.MapX(25), y, 1, ConvergencePlot.RunStartColour) > 20);
+    }
+
+    [Fact]
     public void EmptyStudiesStillRenderAxes()
     {
         Assert.True(PreviewPixels.NonBackground(ParetoPlot.Render([]).Png) > 1000);

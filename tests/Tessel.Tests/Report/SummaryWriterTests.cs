@@ -33,6 +33,21 @@ public class SummaryWriterTests
     }
 
     [Fact]
+    public void AFitOfSeveralSolverRunsIsNumberedInTheOrderItRanAndSummarisedAtItsLastStep()
+    {
+        // A continuation: a first run that ends far from buildable, then a stage that lands. Each run
+        // numbers its own steps from 0, so the highest number (4) belongs to the first run.
+        Tessel.Core.Fitting.FitIteration Step(int index, double residual) =>
+            new(index, "stage", 1.0 / (index + 1), 0, 0, residual, 0, 0, 0, true, 0);
+        var history = new[] { Step(0, 0.3), Step(1, 0.2), Step(2, 0.1), Step(3, 0.05), Step(4, 0.027), Step(0, 1e-3), Step(1, 5.8e-15) };
+        var steps = Tessel.Output.Build.ReportAssembly.ConvergenceSteps(history);
+        Assert.Equal(Enumerable.Range(0, 7), steps.Select(s => s.Iteration));
+        Assert.Equal([5], steps.Select((s, i) => (s, i)).Where(p => p.s.StartsRun).Select(p => p.i));
+        string md = MarkdownSummaryWriter.Render(ReportDemoData.Build() with { Convergence = steps });
+        Assert.Contains("Solver: 7 steps recorded in 2 runs (stages, refits or restarts); at the last, step 6, the objective was 5e-1 and the largest residual 5.8e-15.", md);
+    }
+
+    [Fact]
     public void TerminalLinesAreAlignedInOneColumn()
     {
         var m = ReportDemoData.Build();
