@@ -41,10 +41,11 @@ public sealed record PipelineResult(
     PipelineStop Stop,
     string? Problem);
 
-/// <summary>Runs the stages of one job in order: target, tessellation, fit, checks of the folded model,
-/// unfolding, the flat-layout check, sheets. The only place that knows every stage; it writes nothing.</summary>
-/// <remarks>With an automatic scale the unfolding moves up to just after the fit: the scale is chosen from
-/// the unfolded pattern, and the folded-model checks measure creases in millimetres at that scale.</remarks>
+/// <summary>Runs the stages of one job in order: target, tessellation, fit and unfolding (rebuilt with fewer
+/// cells while creases stay short or the flat layout overlaps itself), checks of the folded model, the
+/// flat-layout check, sheets. The only place that knows every stage; it writes nothing.</summary>
+/// <remarks>With an automatic scale the scale is chosen from the unfolded pattern before the checks, and the
+/// folded-model checks measure creases in millimetres at that scale.</remarks>
 public static class BuildPipeline
 {
     /// <param name="decodeImage">Decodes the PNG of a height-map target; null when no image decoder is
@@ -68,7 +69,20 @@ public static class BuildPipeline
         double strainLimit = SheetStage.SettingsFor(job).Material.StrainLimit;
 
         var fit = FitStage.Run(job, pattern, target.Target, progress, tessellation.DrapeOn, tessellation.Coarser);
-        var cells = FewerCells.UntilCreasesHold(job, tessellation, fit, tessellation.LengthRepair is { } lengthRepair ? [lengthRepair.Message] : [],
+        // The flat layout of each buildable fit is measured here (it is the same for any scale), so that one
+        // which overlaps itself is rebuilt with larger facets before the checks; the last one is kept for them.
+        (FitStageResult Fit, FlatPattern Flat)? developed = null;
+        CellsShortfall? Overlap(FitStageResult f)
+        {
+            var flat = UnfoldingStage.Run(f.Fit.Mesh, progress);
+            developed = (f, flat);
+            var faces = ModelScalePattern.Of(flat, job.Fabrication.AutoScale ? 1000 : 1000 / job.Fabrication.Scale).Faces;
+            return LayoutOverlap.Overlaps(faces, job.Fabrication.AutoScale ? "at full scale" : "at model scale") is { } how
+                ? new($"has a flat layout that overlaps itself ({how})", "try another family or tessellation.foldDepth")
+                : null;
+        }
+        var cells = FewerCells.UntilItHolds(job, tessellation, fit, tessellation.LengthRepair is { } lengthRepair ? [lengthRepair.Message] : [],
+            f => FewerCells.ShortCreases(f) ?? Overlap(f),
             coarser =>
             {
                 var retried = TessellationStage.Run(coarser, target.Target, progress);
@@ -78,10 +92,10 @@ public static class BuildPipeline
             }, progress);
         (job, tessellation, fit) = (cells.Job, cells.Tessellation, cells.Fit);
         pattern = tessellation.Pattern;
-        FlatPattern? unfolded = null;
+        FlatPattern? unfolded = developed is { } d && ReferenceEquals(d.Fit, fit) ? d.Flat : null;
         if (job.Fabrication.AutoScale)
         {
-            unfolded = UnfoldingStage.Run(fit.Fit.Mesh, progress);
+            unfolded ??= UnfoldingStage.Run(fit.Fit.Mesh, progress);
             job = SheetStage.ResolveScale(job, unfolded, progress);
         }
 

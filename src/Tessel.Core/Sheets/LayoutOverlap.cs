@@ -13,9 +13,18 @@ internal static class LayoutOverlap
     /// <exception cref="UncuttableLayoutException">When a facet is turned over or facets overlap.</exception>
     public static void Check(Vec2[][] facePolys)
     {
+        if (Overlaps(facePolys) is { } overlap)
+            throw new UncuttableLayoutException($"the flat layout overlaps itself ({overlap}), so its parts cannot be cut from a sheet; a facet of the fitted model is folded over or crossed: let the fit converge (raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg) or try other cells or fold depth");
+    }
+
+    /// <summary>How the layout (model frame, mm) overlaps itself ("2 facet(s) turned over, 19.1 mm2 of facets
+    /// lying on others at model scale"), or null when it does not; <paramref name="at"/> says which scale the mm are at.</summary>
+    public static string? Overlaps(Vec2[][] facePolys, string at = "at model scale")
+    {
         var (flipped, overlap, total) = Measure(facePolys);
-        if (flipped > 0 || overlap > RoundingShare * total)
-            throw new UncuttableLayoutException($"the flat layout overlaps itself ({flipped} facet(s) turned over, {overlap:0.#} mm2 of facets lying on others at model scale), so its parts cannot be cut from a sheet; a facet of the fitted model is folded over or crossed: let the fit converge (raise fitting.maxIterations, loosen fitting.tolerance or epsilonDeg) or try other cells or fold depth");
+        return flipped > 0 || overlap > RoundingShare * total
+            ? $"{flipped} facet(s) turned over, {overlap:0.#} mm2 of facets lying on others {at}"
+            : null;
     }
 
     /// <summary>Facets of the layout (model frame, y down) that are turned over or cross themselves, the area

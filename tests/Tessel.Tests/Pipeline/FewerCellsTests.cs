@@ -4,8 +4,9 @@ using Xunit;
 
 namespace Tessel.Tests.Pipeline;
 
-/// <summary>The rebuild with fewer cells when a fit keeps creases under the minimum crease, driven by a
-/// stand-in for the tessellation and fit stages that says how many creases stay short at each count.</summary>
+/// <summary>The rebuild with fewer cells when a fit keeps creases under the minimum crease or its flat layout
+/// overlaps itself, driven by a stand-in for the tessellation and fit stages that says what is still wrong at
+/// each count.</summary>
 public class FewerCellsTests
 {
     private static readonly Lazy<(Job Job, TessellationStageResult Tessellation, FitStageResult Fit)> Built = new(() =>
@@ -33,7 +34,7 @@ public class FewerCellsTests
         var (job, tessellation, fit) = Built.Value;
         Assert.True(fit.Fit.Buildable);
         var asked = new List<(int?, int?)>();
-        var outcome = FewerCells.UntilCreasesHold(job, tessellation, fit with { ShortCreases = 7 }, ["the stage's own change"],
+        var outcome = FewerCells.UntilItHolds(job, tessellation, fit with { ShortCreases = 7 }, ["the stage's own change"], FewerCells.ShortCreases,
             j => Rebuild(j, holdsAt: 8, asked), ProgressReporter.Silent);
         // 12 x 10 -> floor(0.85 n), at least one fewer: 10 x 8, then 8 x 6, where the stand-in holds.
         Assert.Equal([(10, 8), (8, 6)], asked);
@@ -50,7 +51,7 @@ public class FewerCellsTests
     {
         var (job, tessellation, fit) = Built.Value;
         var asked = new List<(int?, int?)>();
-        var outcome = FewerCells.UntilCreasesHold(job, tessellation, fit with { ShortCreases = 7 }, [],
+        var outcome = FewerCells.UntilItHolds(job, tessellation, fit with { ShortCreases = 7 }, [], FewerCells.ShortCreases,
             j => Rebuild(j, holdsAt: 2, asked), ProgressReporter.Silent);
         Assert.Equal([(10, 8), (8, 6), (6, 5)], asked);
         Assert.Equal(4, outcome.Fit.ShortCreases);
@@ -62,13 +63,28 @@ public class FewerCellsTests
     }
 
     [Fact]
+    public void AnyShortfallDrivesTheRoundsAndNamesItsOwnFix()
+    {
+        // A stand-in for a flat layout that overlaps itself down to 10 cells along x.
+        var (job, tessellation, fit) = Built.Value;
+        var asked = new List<(int?, int?)>();
+        CellsShortfall? Overlap(FitStageResult f) => asked.Count == 0 || asked[^1].Item1 > 8
+            ? new("has a flat layout that overlaps itself", "try another family or tessellation.foldDepth") : null;
+        var outcome = FewerCells.UntilItHolds(job, tessellation, fit, [], Overlap, j => Rebuild(j, holdsAt: 99, asked), ProgressReporter.Silent);
+        Assert.Equal([(10, 8), (8, 6)], asked);
+        Assert.Equal(8, outcome.Job.Tessellation.CellsX);
+        Assert.Equal(["the fit with 12 x 10 cells has a flat layout that overlaps itself: rebuilt with 10 x 8 cells; for more cells try another family or tessellation.foldDepth",
+            "the fit with 10 x 8 cells has a flat layout that overlaps itself: rebuilt with 8 x 6 cells; for more cells try another family or tessellation.foldDepth"], outcome.Changes);
+    }
+
+    [Fact]
     public void AFitThatHoldsOrIsNotBuildableIsLeftAlone()
     {
         var (job, tessellation, fit) = Built.Value;
         var asked = new List<(int?, int?)>();
-        Assert.Same(fit, FewerCells.UntilCreasesHold(job, tessellation, fit, [], j => Rebuild(j, 8, asked), ProgressReporter.Silent).Fit);
+        Assert.Same(fit, FewerCells.UntilItHolds(job, tessellation, fit, [], FewerCells.ShortCreases, j => Rebuild(j, 8, asked), ProgressReporter.Silent).Fit);
         var unbuildable = fit with { ShortCreases = 3, Fit = fit.Fit with { Buildable = false } };
-        Assert.Same(unbuildable, FewerCells.UntilCreasesHold(job, tessellation, unbuildable, [], j => Rebuild(j, 8, asked), ProgressReporter.Silent).Fit);
+        Assert.Same(unbuildable, FewerCells.UntilItHolds(job, tessellation, unbuildable, [], FewerCells.ShortCreases, j => Rebuild(j, 8, asked), ProgressReporter.Silent).Fit);
         Assert.Empty(asked);
     }
 }

@@ -53,6 +53,17 @@ public class SelfOverlappingLayoutTests
     }
 
     [Fact]
+    public void TheOverlapIsMeasuredBeforeTheSheetsSoTheBuildCanRebuildWithFewerCells()
+    {
+        // The pipeline asks this of every buildable fit (Pipeline/FewerCells): null for a sound layout, else how.
+        Assert.Null(LayoutOverlap.Overlaps(ModelScalePattern.Of(Fan(Regular), 50).Faces));
+        string? how = LayoutOverlap.Overlaps(ModelScalePattern.Of(Fan([0, 150, 120, 180, 240, 300]), 1000).Faces, "at full scale");
+        Assert.NotNull(how);
+        Assert.StartsWith("1 facet(s) turned over, ", how);
+        Assert.EndsWith(" mm2 of facets lying on others at full scale", how);
+    }
+
+    [Fact]
     public void SelfCrossingFacetIsRefusedNotCrashed()
     {
         // Vertices 1 and 2 swapped: triangles (0,1,2) and (0,2,3), (0,6,1) cross one another.
