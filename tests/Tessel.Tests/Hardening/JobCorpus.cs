@@ -342,9 +342,11 @@ internal static class JobCorpus
             yield return Text("footprint", $"{kind}-fp{i}", WithField(JobScaffold.Text(kind, "miura"), "target.footprint", fp));
             i++;
         }
-        // Footprint wider than the dome: undefined over part of it.
-        yield return Text("footprint", "dome-too-wide", WithField(JobScaffold.Text("spherical-cap", "miura"), "target.footprint", """{ "width": 40, "depth": 40 }"""));
-        yield return Text("footprint", "vault-too-wide", WithField(JobScaffold.Text("cylinder", "yoshimura"), "target.footprint", """{ "width": 12, "depth": 17 }"""));
+        // Footprint reaching past the sphere (the scaffold's R = 30 m: corners at 42 m) or across the vault's
+        // circle (R = 12 m, axis along x: y = 13 m): undefined over part of it. Sized from the scaffold's radii,
+        // so GeneratedCorpusTests asserts that they are refused.
+        yield return Text("footprint", "dome-too-wide", WithField(JobScaffold.Text("spherical-cap", "miura"), "target.footprint", """{ "width": 60, "depth": 60 }"""));
+        yield return Text("footprint", "vault-too-wide", WithField(JobScaffold.Text("cylinder", "yoshimura"), "target.footprint", """{ "width": 12, "depth": 26 }"""));
         yield return Text("footprint", "height-map-outside-image", WithField(JobScaffold.Text("height-map", "miura"), "target.footprint", """{ "width": 30, "depth": 10 }"""));
         yield return Text("footprint", "mesh-outside-mesh", WithField(JobScaffold.Text("mesh", "miura"), "target.footprint", """{ "width": 30, "depth": 10 }"""));
     }
